@@ -1,0 +1,11 @@
+import { AppShell } from "@/components/shell/app-shell";
+import { requirePageActor } from "@/lib/auth/guard";
+
+export default async function FieldLayout({ children }: { children: React.ReactNode }) {
+  const actor = await requirePageActor(["volunteer"], "/field");
+  return (
+    <AppShell actor={actor} nav={[{ href: "/field", label: "My transects" }, { href: "/safety", label: "Safety" }]}>
+      {children}
+    </AppShell>
+  );
+}

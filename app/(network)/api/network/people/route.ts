@@ -1,0 +1,11 @@
+import { NextResponse } from "next/server";
+import { route } from "@/lib/http/route";
+import { invitePerson, listPeople } from "@/lib/queries/people";
+import { inviteSchema } from "../../../network/people/schema";
+
+export const GET = route({ roles: ["organiser"] }, async () => ({ people: await listPeople() }));
+
+export const POST = route({ roles: ["organiser"], body: inviteSchema }, async ({ actor, body }) => {
+  const { id } = await invitePerson(actor, body);
+  return NextResponse.json({ invitation: { id, email: body.email, role: body.role } }, { status: 201 });
+});

@@ -1,0 +1,55 @@
+import NextAuth, { CredentialsSignin } from "next-auth";
+import Credentials from "next-auth/providers/credentials";
+import { eq, sql } from "drizzle-orm";
+import { z } from "zod";
+import { authConfig } from "./auth.config";
+import { db } from "@/db/client";
+import { users } from "@/db/schema";
+import { decoyHash, verifyPassword } from "@/lib/auth/password";
+import { isSignInBlocked, recordSignInAttempt } from "@/lib/auth/rate-limit";
+import { env } from "@/lib/env";
+
+class TooManyAttempts extends CredentialsSignin {
+  code = "too_many_attempts";
+}
+
+const credentialsSchema = z.object({
+  email: z.email().max(320).transform((v) => v.trim().toLowerCase()),
+  password: z.string().min(1).max(200),
+});
+
+function clientAddress(request: Request): string {
+  const forwarded = request.headers.get("x-forwarded-for")?.split(",")[0]?.trim();
+  return forwarded || request.headers.get("x-real-ip") || "local";
+}
+
+export const { handlers, auth, signIn, signOut } = NextAuth({
+  ...authConfig,
+  secret: env().AUTH_SECRET,
+  providers: [
+    Credentials({
+      credentials: { email: { type: "email" }, password: { type: "password" } },
+      async authorize(raw, request) {
+        const parsed = credentialsSchema.safeParse(raw);
+        if (!parsed.success) return null;
+        const { email, password } = parsed.data;
+        const ip = clientAddress(request);
+        if (await isSignInBlocked(email, ip)) throw new TooManyAttempts();
+
+        const [user] = await db()
+          .select()
+          .from(users)
+          .where(eq(sql`lower(${users.email})`, email))
+          .limit(1);
+        // Always run one bcrypt comparison so an unknown e-mail takes as long as a wrong password.
+        const ok = await verifyPassword(password, user?.passwordHash ?? decoyHash);
+        const accepted = Boolean(user && user.active && user.passwordHash && ok);
+        await recordSignInAttempt(email, ip, accepted);
+        if (!accepted || !user) return null;
+
+        await db().update(users).set({ lastSignInAt: new Date() }).where(eq(users.id, user.id));
+        return { id: user.id, email: user.email, name: user.name, role: user.role };
+      },
+    }),
+  ],
+});

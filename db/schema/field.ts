@@ -1,0 +1,105 @@
+import { sql } from "drizzle-orm";
+import { boolean, check, date, doublePrecision, index, integer, pgEnum, pgTable, smallint, text, time, timestamp, uuid } from "drizzle-orm/pg-core";
+import { users } from "./people";
+import { seasons, transects } from "./sites";
+import { species } from "./taxa";
+
+export const skyEnum = pgEnum("sky", ["clear", "mostly_sunny", "broken_cloud", "mostly_cloudy", "overcast"]);
+
+/** A walk of one transect on one day. The id is generated on the phone, so resends are idempotent. */
+export const visits = pgTable(
+  "visits",
+  {
+    id: uuid("id").primaryKey(),
+    transectId: uuid("transect_id").notNull().references(() => transects.id, { onDelete: "restrict" }),
+    volunteerId: uuid("volunteer_id").notNull().references(() => users.id, { onDelete: "restrict" }),
+    seasonId: uuid("season_id").references(() => seasons.id, { onDelete: "set null" }),
+    visitDate: date("visit_date").notNull(),
+    startTime: time("start_time").notNull(),
+    endTime: time("end_time"),
+    temperatureC: doublePrecision("temperature_c"),
+    windBeaufort: smallint("wind_beaufort"),
+    cloudCoverPercent: smallint("cloud_cover_percent"),
+    sky: skyEnum("sky"),
+    coRecorders: text("co_recorders"),
+    // Absences are inferred only from complete lists.
+    completeList: boolean("complete_list").notNull().default(false),
+    notes: text("notes"),
+    submittedAt: timestamp("submitted_at", { withTimezone: true }),
+    clientUpdatedAt: timestamp("client_updated_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("visits_transect_date_idx").on(t.transectId, t.visitDate),
+    index("visits_volunteer_idx").on(t.volunteerId, t.visitDate),
+    index("visits_season_idx").on(t.seasonId),
+    check("visits_wind_beaufort", sql`${t.windBeaufort} is null or ${t.windBeaufort} between 0 and 12`),
+    check("visits_cloud_percent", sql`${t.cloudCoverPercent} is null or ${t.cloudCoverPercent} between 0 and 100`),
+    check("visits_temperature_plausible", sql`${t.temperatureC} is null or ${t.temperatureC} between -40 and 60`),
+    check("visits_times_ordered", sql`${t.endTime} is null or ${t.endTime} >= ${t.startTime}`),
+  ],
+);
+
+export const sightingStatusEnum = pgEnum("sighting_status", ["pending", "accepted", "queried", "rejected"]);
+export type SightingStatus = (typeof sightingStatusEnum.enumValues)[number];
+
+export const sightings = pgTable(
+  "sightings",
+  {
+    id: uuid("id").primaryKey(),
+    visitId: uuid("visit_id").notNull().references(() => visits.id, { onDelete: "cascade" }),
+    speciesId: uuid("species_id").notNull().references(() => species.id, { onDelete: "restrict" }),
+    count: integer("count").notNull().default(1),
+    section: smallint("section"),
+    latitude: doublePrecision("latitude"),
+    longitude: doublePrecision("longitude"),
+    accuracyMetres: doublePrecision("accuracy_metres"),
+    note: text("note"),
+    status: sightingStatusEnum("status").notNull().default("pending"),
+    reviewedById: uuid("reviewed_by_id").references(() => users.id, { onDelete: "set null" }),
+    reviewedAt: timestamp("reviewed_at", { withTimezone: true }),
+    clientUpdatedAt: timestamp("client_updated_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("sightings_visit_idx").on(t.visitId),
+    index("sightings_species_idx").on(t.speciesId),
+    index("sightings_status_idx").on(t.status),
+    check("sightings_count_nonnegative", sql`${t.count} >= 0`),
+    check("sightings_section_positive", sql`${t.section} is null or ${t.section} >= 1`),
+    check("sightings_latitude", sql`${t.latitude} is null or ${t.latitude} between -90 and 90`),
+    check("sightings_longitude", sql`${t.longitude} is null or ${t.longitude} between -180 and 180`),
+    check("sightings_position_pair", sql`(${t.latitude} is null) = (${t.longitude} is null)`),
+  ],
+);
+
+export const photoStatusEnum = pgEnum("photo_status", ["awaiting_upload", "processing", "ready", "refused"]);
+
+export const photos = pgTable(
+  "photos",
+  {
+    id: uuid("id").primaryKey(),
+    sightingId: uuid("sighting_id").references(() => sightings.id, { onDelete: "cascade" }),
+    visitId: uuid("visit_id").notNull().references(() => visits.id, { onDelete: "cascade" }),
+    uploadedById: uuid("uploaded_by_id").notNull().references(() => users.id, { onDelete: "restrict" }),
+    status: photoStatusEnum("status").notNull().default("awaiting_upload"),
+    // Object keys in the private bucket; nothing here is ever public.
+    uploadKey: text("upload_key").notNull(),
+    displayKey: text("display_key"),
+    thumbnailKey: text("thumbnail_key"),
+    contentType: text("content_type"),
+    bytes: integer("bytes"),
+    width: integer("width"),
+    height: integer("height"),
+    refusalReason: text("refusal_reason"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    processedAt: timestamp("processed_at", { withTimezone: true }),
+  },
+  (t) => [
+    index("photos_sighting_idx").on(t.sightingId),
+    index("photos_visit_idx").on(t.visitId),
+    check("photos_bytes_nonnegative", sql`${t.bytes} is null or ${t.bytes} >= 0`),
+  ],
+);

@@ -1,0 +1,82 @@
+import { sql } from "drizzle-orm";
+import { boolean, index, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, integer, check } from "drizzle-orm/pg-core";
+
+export const roleEnum = pgEnum("role", ["volunteer", "coordinator", "organiser", "partner"]);
+export type Role = (typeof roleEnum.enumValues)[number];
+
+export const users = pgTable(
+  "users",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    email: text("email").notNull(),
+    name: text("name").notNull(),
+    role: roleEnum("role").notNull().default("volunteer"),
+    passwordHash: text("password_hash"),
+    active: boolean("active").notNull().default(true),
+    invitedById: uuid("invited_by_id"),
+    acceptedSafetyAt: timestamp("accepted_safety_at", { withTimezone: true }),
+    lastSignInAt: timestamp("last_sign_in_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    // E-mail addresses are compared case-insensitively everywhere.
+    uniqueIndex("users_email_lower_idx").on(sql`lower(${t.email})`),
+    index("users_role_idx").on(t.role),
+    check("users_email_shape", sql`${t.email} ~ '^[^@\\s]+@[^@\\s]+$'`),
+  ],
+);
+
+export const invitations = pgTable(
+  "invitations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    email: text("email").notNull(),
+    name: text("name").notNull(),
+    role: roleEnum("role").notNull(),
+    // Only a hash of the token is kept, so a database leak does not hand out accounts.
+    tokenHash: text("token_hash").notNull(),
+    invitedById: uuid("invited_by_id").notNull().references(() => users.id, { onDelete: "restrict" }),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("invitations_token_hash_idx").on(t.tokenHash), index("invitations_email_idx").on(sql`lower(${t.email})`)],
+);
+
+/** Failed and successful sign-in attempts, for rate limiting by e-mail and by address. */
+export const signInAttempts = pgTable(
+  "sign_in_attempts",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    emailKey: text("email_key").notNull(),
+    ipKey: text("ip_key").notNull(),
+    succeeded: boolean("succeeded").notNull(),
+    attemptedAt: timestamp("attempted_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("sign_in_attempts_email_idx").on(t.emailKey, t.attemptedAt),
+    index("sign_in_attempts_ip_idx").on(t.ipKey, t.attemptedAt),
+  ],
+);
+
+/** One deployment serves one network: a single settings row (id = 1). */
+export const networkSettings = pgTable(
+  "network_settings",
+  {
+    id: integer("id").primaryKey().default(1),
+    name: text("name").notNull(),
+    taxonGroup: text("taxon_group").notNull(),
+    // Conditions rules: breaking them warns the volunteer, never blocks a visit.
+    minTemperatureC: integer("min_temperature_c"),
+    maxWindBeaufort: integer("max_wind_beaufort"),
+    earliestStartTime: text("earliest_start_time"),
+    latestStartTime: text("latest_start_time"),
+    contactEmail: text("contact_email"),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    check("network_settings_singleton", sql`${t.id} = 1`),
+    check("network_settings_wind", sql`${t.maxWindBeaufort} is null or ${t.maxWindBeaufort} between 0 and 12`),
+  ],
+);

@@ -1,0 +1,46 @@
+import "server-only";
+import { eq } from "drizzle-orm";
+import { forbidden as forbiddenPage, redirect, unauthorized as unauthorizedPage } from "next/navigation";
+import { auth } from "@/auth";
+import { db } from "@/db/client";
+import { users } from "@/db/schema";
+import { forbidden, unauthorized } from "@/lib/errors";
+import type { Role } from "./roles";
+
+export type Actor = { id: string; role: Role; name: string; email: string };
+
+/**
+ * The signed-in person, re-read from the database on every request so a role change or a
+ * deactivation takes effect at once rather than when the session cookie expires.
+ */
+export async function currentActor(): Promise<Actor | null> {
+  const session = await auth();
+  const id = session?.user?.id;
+  if (!id) return null;
+  const [row] = await db()
+    .select({ id: users.id, role: users.role, name: users.name, email: users.email, active: users.active })
+    .from(users)
+    .where(eq(users.id, id))
+    .limit(1);
+  if (!row || !row.active) return null;
+  return { id: row.id, role: row.role, name: row.name, email: row.email };
+}
+
+/** For route handlers and server actions: throws 401 / 403 AppErrors. */
+export async function requireActor(allowed?: readonly Role[]): Promise<Actor> {
+  const actor = await currentActor();
+  if (!actor) throw unauthorized();
+  if (allowed && !allowed.includes(actor.role)) throw forbidden();
+  return actor;
+}
+
+/** For pages and layouts: sends strangers to sign-in and renders 403 for the wrong role. */
+export async function requirePageActor(allowed: readonly Role[], returnTo?: string): Promise<Actor> {
+  const actor = await currentActor();
+  if (!actor) {
+    if (returnTo) redirect(`/sign-in?from=${encodeURIComponent(returnTo)}`);
+    unauthorizedPage();
+  }
+  if (!allowed.includes(actor.role)) forbiddenPage();
+  return actor;
+}
