@@ -1,7 +1,12 @@
 "use server";
 
+import { eq, sql } from "drizzle-orm";
 import { AuthError } from "next-auth";
+import { redirect } from "next/navigation";
 import { signIn } from "@/auth";
+import { db } from "@/db/client";
+import { users } from "@/db/schema";
+import { roleHome } from "@/lib/auth/roles";
 import { fieldErrorsOf } from "@/lib/validation";
 import type { FieldErrors } from "@/lib/errors";
 import { signInSchema } from "./schema";
@@ -9,19 +14,15 @@ import { signInSchema } from "./schema";
 export type SignInResult = { ok: false; message: string; fieldErrors?: FieldErrors };
 
 // Only same-site paths are followed after sign-in, so a crafted link cannot bounce people elsewhere.
-function safeReturnPath(from: string | undefined): string {
-  return from && from.startsWith("/") && !from.startsWith("//") ? from : "/";
+function safeReturnPath(from: string | undefined): string | null {
+  return from && from.startsWith("/") && !from.startsWith("//") && from !== "/" ? from : null;
 }
 
 export async function signInAction(input: unknown): Promise<SignInResult> {
   const parsed = signInSchema.safeParse(input);
   if (!parsed.success) return { ok: false, message: "Some fields need attention.", fieldErrors: fieldErrorsOf(parsed.error) };
   try {
-    await signIn("credentials", {
-      email: parsed.data.email,
-      password: parsed.data.password,
-      redirectTo: safeReturnPath(parsed.data.from),
-    });
+    await signIn("credentials", { email: parsed.data.email, password: parsed.data.password, redirect: false });
   } catch (error) {
     if (error instanceof AuthError) {
       const code = "code" in error ? String((error as { code?: unknown }).code) : "";
@@ -31,7 +32,9 @@ export async function signInAction(input: unknown): Promise<SignInResult> {
       // The same words whether the e-mail is unknown or the password is wrong.
       return { ok: false, message: "That e-mail and password do not match an active account." };
     }
-    throw error; // a successful sign-in redirects by throwing
+    throw error;
   }
-  return { ok: false, message: "Sign-in did not complete. Please try again." };
+  // Signed in: go straight to the page asked for, or to the role's own home.
+  const [user] = await db().select({ role: users.role }).from(users).where(eq(sql`lower(${users.email})`, parsed.data.email.toLowerCase())).limit(1);
+  redirect(safeReturnPath(parsed.data.from) ?? (user ? roleHome[user.role] : "/"));
 }

@@ -1,0 +1,30 @@
+// Totals vitest's JSON reports into the single closing line CI reads: "N passed, N failed".
+// A missing report (a suite that never ran) and a failed type check both count as failures.
+import { existsSync, readFileSync } from "node:fs";
+import path from "node:path";
+
+const [dir, tscStatus] = process.argv.slice(2);
+let passed = 0;
+let failed = 0;
+let skipped = 0;
+for (const name of ["vitest.json", "browser.json"]) {
+  const file = path.join(dir, name);
+  if (!existsSync(file)) {
+    console.log(`${name}: no report (suite did not run)`);
+    failed += 1;
+    continue;
+  }
+  const report = JSON.parse(readFileSync(file, "utf8"));
+  passed += report.numPassedTests ?? 0;
+  failed += (report.numFailedTests ?? 0) + (report.numFailedTestSuites ?? 0);
+  skipped += (report.numPendingTests ?? 0) + (report.numTodoTests ?? 0);
+  if ((report.numTotalTests ?? 0) === 0) failed += 1;
+}
+if (tscStatus !== "0") {
+  console.log("type check: failed");
+  failed += 1;
+} else {
+  passed += 1;
+}
+console.log(`${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ""}`);
+process.exit(failed === 0 ? 0 : 1);
