@@ -1,0 +1,222 @@
+// Permutation test of each site's D (Legendre 2019, section 2.3): species' values are
+// reassigned at random among sites and every site's D recomputed. Only non-zero cells are
+// touched: for species j with k_j occupied sites, a partial Fisher-Yates shuffle puts those
+// k_j cells on k_j distinct random sites, O(sum k_j) per permutation. A partial shuffle from
+// any arrangement is uniform, so the position array is never reset between species.
+import { TOLERANCE, doublesShared } from "./indices";
+import { STREAM_SITE_PERMUTATION, assertSeed, streamState } from "./random";
+import type { ChunkCounts, PermutationMode, PreparedPair } from "./types";
+
+const TWO_TO_MINUS_32 = 2 ** -32;
+
+/** Permutations per chunk when none is given; results do not depend on it. */
+export const DEFAULT_CHUNK_SIZE = 250;
+
+export interface ObservedSums {
+  readonly shared: Float64Array;
+  readonly lost: Float64Array;
+  readonly gained: Float64Array;
+  readonly dissimilarity: Float64Array;
+}
+
+/** A, B, C and D of every compared site, summed species by species like the permutations. */
+export function observedSums(prepared: PreparedPair): ObservedSums {
+  const n = prepared.sites.length;
+  const A = new Float64Array(n);
+  const B = new Float64Array(n);
+  const C = new Float64Array(n);
+  const { cellSite, before, after } = prepared;
+  for (let c = 0; c < cellSite.length; c++) {
+    const s = cellSite[c]!;
+    const x1 = before[c]!;
+    const x2 = after[c]!;
+    const m = x1 < x2 ? x1 : x2;
+    A[s]! += m;
+    B[s]! += x1 - m;
+    C[s]! += x2 - m;
+  }
+  const double = doublesShared(prepared.index);
+  const D = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const den = (double ? 2 * A[i]! : A[i]!) + B[i]! + C[i]!;
+    D[i] = den > 0 ? (B[i]! + C[i]!) / den : Number.NaN;
+  }
+  return { shared: A, lost: B, gained: C, dissimilarity: D };
+}
+
+export interface ChunkRequest {
+  readonly prepared: PreparedPair;
+  readonly mode: PermutationMode;
+  readonly seed: number;
+  /** First permutation number (0-based) and how many to run. */
+  readonly start: number;
+  readonly count: number;
+  /** Observed D per site; computed from `prepared` when omitted. */
+  readonly observed?: Float64Array;
+}
+
+/**
+ * Runs permutations start .. start+count-1 and counts, per site, those whose D is at least
+ * the observed D (within 1e-10). Permutation r always draws from its own stream, so counts
+ * of any set of disjoint ranges add up to the counts of one run over their union.
+ */
+export function runPermutationChunk(request: ChunkRequest): ChunkCounts {
+  const { prepared, mode, seed, start, count } = request;
+  assertSeed(seed);
+  if (!Number.isSafeInteger(start) || start < 0 || !Number.isSafeInteger(count) || count < 0) {
+    throw new RangeError(`bad permutation range start=${start} count=${count}`);
+  }
+  const observed = request.observed ?? observedSums(prepared).dissimilarity;
+  const exceed = countExceedances(prepared, observed, mode, seed, start, count);
+  return { start, count, exceed: Array.from(exceed) };
+}
+
+function countExceedances(
+  prepared: PreparedPair,
+  observed: Float64Array,
+  mode: PermutationMode,
+  seed: number,
+  start: number,
+  count: number,
+): Int32Array {
+  const n = prepared.sites.length;
+  const p = prepared.species.length;
+  const { colStart, before, after } = prepared;
+  const double = doublesShared(prepared.index);
+  const paired = mode === "paired";
+  const exceed = new Int32Array(n);
+  const pos = new Int32Array(n);
+  const dest = new Int32Array(n);
+  const destT1 = new Int32Array(n);
+  // A, B, C of site s at 3s, 3s+1, 3s+2: one cache line per placement.
+  const abc = new Float64Array(3 * n);
+  const threshold = Float64Array.from(observed, (d) => d - TOLERANCE);
+
+  // Paired mode moves a cell's (T1, T2) pair together, so its parts can be precomputed.
+  const cells = before.length;
+  const cellParts = new Float64Array(3 * cells);
+  for (let c = 0; c < cells; c++) {
+    const m = before[c]! < after[c]! ? before[c]! : after[c]!;
+    cellParts[3 * c] = m;
+    cellParts[3 * c + 1] = before[c]! - m;
+    cellParts[3 * c + 2] = after[c]! - m;
+  }
+  // Independent mode: what is left of each site's T1 value once T2 is placed.
+  const remaining = new Float64Array(n);
+
+  for (let r = start; r < start + count; r++) {
+    // xoshiro128** (random.ts) inlined: a method call per draw costs about three times more.
+    const state = streamState(seed, STREAM_SITE_PERMUTATION, r);
+    let s0 = state[0]!;
+    let s1 = state[1]!;
+    let s2 = state[2]!;
+    let s3 = state[3]!;
+    for (let i = 0; i < n; i++) pos[i] = i;
+    abc.fill(0);
+    for (let j = 0; j < p; j++) {
+      const lo = colStart[j]!;
+      const k = colStart[j + 1]! - lo;
+      // Paired: one shuffle places both seasons. Independent: T1's column, then T2's.
+      for (let pass = paired ? 1 : 0; pass < 2; pass++) {
+        const placed = pass === 0 ? destT1 : dest;
+        for (let t = 0; t < k; t++) {
+          // Uniform u in [t, n) by Lemire's method, exactly as Xoshiro128.below.
+          const m = n - t;
+          let high: number;
+          for (;;) {
+            const r5 = Math.imul(s1, 5);
+            const out = Math.imul((r5 << 7) | (r5 >>> 25), 9) >>> 0;
+            const t9 = s1 << 9;
+            s2 ^= s0;
+            s3 ^= s1;
+            s1 ^= s2;
+            s0 ^= s3;
+            s2 ^= t9;
+            s3 = (s3 << 11) | (s3 >>> 21);
+            const prod = out * m;
+            high = (prod * TWO_TO_MINUS_32) | 0;
+            const low = prod - high * 4294967296;
+            if (low >= m || low >= (4294967296 - m) % m) break;
+          }
+          const u = t + high;
+          const s = pos[u]!;
+          pos[u] = pos[t]!;
+          pos[t] = s;
+          placed[t] = s;
+        }
+        if (paired) {
+          for (let t = 0; t < k; t++) {
+            const q = 3 * dest[t]!;
+            const c = 3 * (lo + t);
+            abc[q]! += cellParts[c]!;
+            abc[q + 1]! += cellParts[c + 1]!;
+            abc[q + 2]! += cellParts[c + 2]!;
+          }
+        } else if (pass === 0) {
+          for (let t = 0; t < k; t++) remaining[destT1[t]!] = before[lo + t]!;
+        } else {
+          for (let t = 0; t < k; t++) {
+            const s = dest[t]!;
+            const x2 = after[lo + t]!;
+            const x1 = remaining[s]!;
+            const m = x1 < x2 ? x1 : x2;
+            abc[3 * s]! += m;
+            abc[3 * s + 2]! += x2 - m;
+            remaining[s] = x1 - m;
+          }
+        }
+      }
+      if (!paired) {
+        // What is left of the T1 cells after T2 is placed is lost.
+        for (let t = 0; t < k; t++) {
+          const s = destT1[t]!;
+          abc[3 * s + 1]! += remaining[s]!;
+          remaining[s] = 0;
+        }
+      }
+    }
+    // An empty permuted site has no D, so it never counts as >= (method.md).
+    for (let i = 0; i < n; i++) {
+      const A = abc[3 * i]!;
+      const B = abc[3 * i + 1]!;
+      const C = abc[3 * i + 2]!;
+      // Same expression as observedSums, so an unchanged table reproduces D bit for bit.
+      const den = (double ? 2 * A : A) + B + C;
+      if (den > 0 && (B + C) / den >= threshold[i]!) exceed[i]!++;
+    }
+  }
+  return exceed;
+}
+
+/** Fixed ranges covering permutations 0 .. total-1, for threads or a job queue. */
+export function planChunks(total: number, chunkSize = DEFAULT_CHUNK_SIZE): Array<{ start: number; count: number }> {
+  if (!Number.isSafeInteger(total) || total < 0) throw new RangeError(`bad permutation count ${total}`);
+  if (!Number.isSafeInteger(chunkSize) || chunkSize < 1) throw new RangeError(`bad chunk size ${chunkSize}`);
+  const chunks: Array<{ start: number; count: number }> = [];
+  for (let start = 0; start < total; start += chunkSize) chunks.push({ start, count: Math.min(chunkSize, total - start) });
+  return chunks;
+}
+
+/**
+ * Sums chunk counts; throws unless the chunks cover 0 .. total-1 exactly once, so a lost
+ * or duplicated job cannot silently change the p-values.
+ */
+export function addChunkCounts(nSites: number, total: number, chunks: readonly ChunkCounts[]): Int32Array {
+  const sorted = [...chunks].sort((a, b) => a.start - b.start);
+  let next = 0;
+  const sum = new Int32Array(nSites);
+  for (const chunk of sorted) {
+    if (chunk.count === 0) continue;
+    if (chunk.start !== next) throw new Error(`permutation chunks do not tile 0..${total - 1}: gap or overlap at ${next}`);
+    if (chunk.exceed.length !== nSites) throw new Error(`chunk at ${chunk.start} has ${chunk.exceed.length} counts for ${nSites} sites`);
+    chunk.exceed.forEach((v, i) => (sum[i] = sum[i]! + v));
+    next = chunk.start + chunk.count;
+  }
+  if (next !== total) throw new Error(`permutation chunks cover 0..${next - 1}, expected 0..${total - 1}`);
+  return sum;
+}
+
+/** p_i = (1 + count_i) / (1 + R) (method.md; Legendre 2019); null when R = 0. */
+export function permutationPValues(counts: ArrayLike<number>, permutations: number): Array<number | null> {
+  return Array.from(counts, (c) => (permutations > 0 ? (1 + c) / (1 + permutations) : null));
+}
