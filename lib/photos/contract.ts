@@ -1,0 +1,27 @@
+import { z } from "zod";
+
+// The wire format of the photo upload flow, shared by the phone and the server:
+// 1. POST /api/field/photos            { id, visitId, sightingId, contentType, bytes } -> { uploadUrl, headers, expiresAt }
+// 2. PUT  uploadUrl                     (the file itself, straight to the object store)
+// 3. POST /api/field/photos/{id}/complete -> { photo: { id, status: "ready", width, height } } or 400 { error } when refused
+// 4. GET  /api/photos/{id}?size=thumbnail|display -> 302 to a short-lived signed URL, for people allowed to see it
+
+export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
+export const MAX_PHOTO_PIXELS = 40_000_000;
+export const acceptedPhotoTypes = ["image/jpeg", "image/png", "image/webp", "image/heic", "image/heif"] as const;
+
+export const photoUploadRequest = z.object({
+  id: z.uuid({ message: "The photo id must be a UUID." }),
+  visitId: z.uuid({ message: "The photo must belong to a visit." }),
+  sightingId: z.uuid().nullable().optional(),
+  contentType: z.string().max(100),
+  bytes: z
+    .number()
+    .int()
+    .min(1, { message: "The file is empty." })
+    .max(MAX_PHOTO_BYTES, { message: "Photos can be at most 15 MB." }),
+});
+export type PhotoUploadRequest = z.infer<typeof photoUploadRequest>;
+
+export type PhotoUploadTicket = { id: string; uploadUrl: string; headers: Record<string, string>; expiresAt: string };
+export type PhotoReady = { photo: { id: string; status: "ready"; width: number; height: number } };
