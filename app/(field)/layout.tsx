@@ -1,11 +1,19 @@
+import { FieldProviders } from "@/components/field/field-providers";
 import { AppShell } from "@/components/shell/app-shell";
 import { requirePageActor } from "@/lib/auth/guard";
 
 export default async function FieldLayout({ children }: { children: React.ReactNode }) {
   const actor = await requirePageActor(["volunteer"], "/field");
   return (
-    <AppShell actor={actor} nav={[{ href: "/field", label: "My transects" }, { href: "/safety", label: "Safety" }]}>
-      {children}
+    <AppShell
+      actor={actor}
+      nav={[
+        { href: "/field", label: "My transects" },
+        { href: "/field/records", label: "My records" },
+        { href: "/safety", label: "Safety" },
+      ]}
+    >
+      <FieldProviders>{children}</FieldProviders>
     </AppShell>
   );
 }

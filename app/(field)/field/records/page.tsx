@@ -1,0 +1,10 @@
+import type { Metadata } from "next";
+import { MyRecords } from "@/components/field/my-records";
+import { requirePageActor } from "@/lib/auth/guard";
+
+export const metadata: Metadata = { title: "My records" };
+
+export default async function RecordsPage() {
+  await requirePageActor(["volunteer"], "/field/records");
+  return <MyRecords />;
+}

@@ -1,0 +1,32 @@
+/// <reference lib="webworker" />
+import { defaultCache } from "@serwist/next/worker";
+import type { PrecacheEntry, SerwistGlobalConfig } from "serwist";
+import { NetworkFirst, Serwist } from "serwist";
+
+declare global {
+  interface WorkerGlobalScope extends SerwistGlobalConfig {
+    __SW_MANIFEST: (PrecacheEntry | string)[] | undefined;
+  }
+}
+declare const self: ServiceWorkerGlobalScope;
+
+// Field pages a volunteer needs with no signal. Their HTML is cached on every visit online
+// (network first, so a fresh copy wins whenever there is signal). Field data lives in
+// IndexedDB, not in this cache: see lib/offline.
+const fieldPage = (pathname: string) => pathname === "/field" || pathname.startsWith("/field/") || pathname === "/safety";
+
+const serwist = new Serwist({
+  precacheEntries: self.__SW_MANIFEST,
+  skipWaiting: true,
+  clientsClaim: true,
+  navigationPreload: false,
+  runtimeCaching: [
+    {
+      matcher: ({ request, url, sameOrigin }) => sameOrigin && request.mode === "navigate" && fieldPage(url.pathname),
+      handler: new NetworkFirst({ cacheName: "turnstone-field-pages", networkTimeoutSeconds: 5, matchOptions: { ignoreSearch: true } }),
+    },
+    ...defaultCache,
+  ],
+});
+
+serwist.addEventListeners();

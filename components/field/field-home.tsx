@@ -1,0 +1,90 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import { SafetyNotice } from "@/components/safety/safety-notice";
+import { fieldDb } from "@/lib/offline/db";
+import { loadReference } from "@/lib/offline/reference";
+import { OutboxPanel } from "./outbox-panel";
+import { useLive } from "./use-live";
+
+/** The volunteer's home: their transects, drafts in progress, the outbox, the safety notice. */
+export function FieldHome({ firstName }: { firstName: string }) {
+  const reference = useQuery({ queryKey: ["field-reference"], queryFn: () => loadReference() });
+  const local = useLive(async () => {
+    const visits = await fieldDb().visits.toArray();
+    return {
+      drafts: visits.filter((v) => v.phase === "draft").sort((a, b) => b.updatedAt.localeCompare(a.updatedAt)),
+      unsentByTransect: visits.filter((v) => v.phase === "submitted" && v.outbox !== "sent"),
+    };
+  }, []);
+  const data = reference.data?.data;
+  const season = data?.season;
+
+  return (
+    <div className="space-y-6">
+      <div>
+        <h1 className="text-2xl font-bold text-tideline-800">Hello, {firstName}</h1>
+        {season && <p className="text-shingle-600">{season.name}: {season.startsOn} to {season.endsOn}</p>}
+        {reference.data?.fromPhone && <p className="text-sm text-sand-800">No signal: showing the copy saved on this phone.</p>}
+      </div>
+
+      {local && local.drafts.length > 0 && (
+        <section aria-labelledby="drafts-heading" className="card border-tideline-600">
+          <h2 id="drafts-heading" className="text-lg font-bold">Walks in progress</h2>
+          <ul className="mt-2 space-y-2">
+            {local.drafts.map((d) => {
+              const t = data?.transects.find((x) => x.id === d.transectId);
+              return (
+                <li key={d.id}>
+                  <a className="btn-quiet w-full justify-between" href={`/field/visit?id=${d.id}`}>
+                    <span>{t ? `${t.code} ${t.name}` : "Transect"} · {d.visitDate}</span>
+                    <span aria-hidden>›</span>
+                  </a>
+                </li>
+              );
+            })}
+          </ul>
+        </section>
+      )}
+
+      <section aria-labelledby="my-transects">
+        <h2 id="my-transects" className="mb-3 text-xl font-bold">My transects</h2>
+        {reference.isPending && <p>Loading your transects…</p>}
+        {reference.isError && <p className="card text-rust-700">{(reference.error as Error).message}</p>}
+        {data && data.transects.length === 0 && <p className="card">You have no transects yet. Your network organiser assigns them.</p>}
+        <ul className="space-y-3">
+          {data?.transects.map((t) => {
+            const unsent = local?.unsentByTransect.filter((v) => v.transectId === t.id).length ?? 0;
+            return (
+              <li key={t.id} className="card" data-testid="assigned-transect">
+                <h3 className="text-lg font-bold">
+                  <span className="mr-2 rounded bg-tideline-100 px-2 py-0.5 font-mono text-tideline-800">{t.code}</span>
+                  {t.name}
+                </h3>
+                <p className="mt-1 text-shingle-600">
+                  {t.habitat} · {t.sectionCount} sections · {(t.lengthMetres / 1000).toFixed(1)} km
+                </p>
+                {t.accessNotes && <p className="mt-1 text-sm text-sand-800">{t.accessNotes}</p>}
+                <p className="mt-1">
+                  Last visit: <strong>{t.lastVisit ?? "none yet"}</strong>
+                  {season && (
+                    <>
+                      {" "}· This season: <strong>{t.visitsThisSeason + unsent}</strong> of {season.targetVisits} visits
+                    </>
+                  )}
+                </p>
+                <a className="btn-primary mt-3 w-full" href={`/field/visit?transect=${t.id}`}>Start a visit</a>
+              </li>
+            );
+          })}
+        </ul>
+      </section>
+
+      <OutboxPanel />
+      <p>
+        <a className="btn-quiet w-full" href="/field/records">My records and questions</a>
+      </p>
+      <SafetyNotice compact />
+    </div>
+  );
+}

@@ -1,0 +1,164 @@
+"use client";
+
+import { useState } from "react";
+import { beaufortScale } from "@/lib/field/beaufort";
+import type { ChecklistEntry } from "@/lib/field/species-search";
+import { timeNow } from "@/lib/field/visit-form";
+import { fieldDb, type LocalSighting } from "@/lib/offline/db";
+import { deleteDraftVisit, deleteSighting, returnToDraft, submitVisit } from "@/lib/offline/records";
+import { syncNow } from "@/lib/offline/sync-controller";
+import { useLive } from "../use-live";
+import { SightingForm } from "./sighting-form";
+
+type Transect = { id: string; code: string; name: string; sectionCount: number };
+
+export function RecordingScreen({ visitId, transects, checklist, seenByTransect }: { visitId: string; transects: Transect[]; checklist: ChecklistEntry[]; seenByTransect: Record<string, string[]> }) {
+  const data = useLive(async () => {
+    const db = fieldDb();
+    const visit = await db.visits.get(visitId);
+    const sightings = await db.sightings.where("visitId").equals(visitId).toArray();
+    const photos = await db.photos.where("visitId").equals(visitId).toArray();
+    return { visit: visit ?? null, sightings: sightings.sort((a, b) => a.updatedAt.localeCompare(b.updatedAt)), photos };
+  }, [visitId]);
+  const [adding, setAdding] = useState(false);
+  const [editing, setEditing] = useState<LocalSighting | null>(null);
+  const [finishing, setFinishing] = useState(false);
+  const [endTime, setEndTime] = useState("");
+  const [completeList, setCompleteList] = useState(false);
+  const [notes, setNotes] = useState("");
+  const [error, setError] = useState<string | null>(null);
+
+  if (data === undefined) return <p>Loading the visit…</p>;
+  if (!data.visit) return <p className="card">This visit is not on this phone. <a className="font-bold text-tideline-700" href="/field">Back to my transects</a></p>;
+  const { visit, sightings, photos } = data;
+  const transect = transects.find((t) => t.id === visit.transectId);
+  const speciesName = (id: string) => checklist.find((s) => s.id === id)?.vernacularName ?? "Unknown species";
+  const draft = visit.phase === "draft";
+
+  const submit = async () => {
+    setError(null);
+    try {
+      await submitVisit(visitId, { endTime: endTime || timeNow(), completeList, notes: notes.trim() || null });
+      void syncNow();
+    } catch (e) {
+      setError(e instanceof Error ? e.message : "Could not submit the visit.");
+    }
+  };
+
+  return (
+    <div className="space-y-4">
+      <div>
+        <h1 className="text-2xl font-bold text-tideline-800">{transect ? `${transect.code} ${transect.name}` : "Visit"}</h1>
+        <p className="text-shingle-600">
+          {visit.visitDate} from {visit.startTime}
+          {visit.temperatureC != null && ` · ${visit.temperatureC} °C`}
+          {visit.windBeaufort != null && ` · wind ${visit.windBeaufort} (${beaufortScale[visit.windBeaufort]?.name})`}
+        </p>
+      </div>
+
+      {!draft && (
+        <div className="card" role="status" data-testid="visit-submitted">
+          {visit.outbox === "sent" ? (
+            <p><strong>Sent.</strong> A record checker will look at it.</p>
+          ) : visit.outbox === "needs-attention" ? (
+            <>
+              <p className="font-bold text-rust-700">Needs attention: {visit.attention}</p>
+              <button type="button" className="btn-quiet mt-2" onClick={() => void returnToDraft(visitId)}>Correct it</button>
+            </>
+          ) : (
+            <p><strong>In your outbox.</strong> It will be sent when there is signal.</p>
+          )}
+          <a href="/field" className="btn-primary mt-3 w-full">Back to my transects</a>
+        </div>
+      )}
+
+      <section aria-labelledby="sightings-heading">
+        <h2 id="sightings-heading" className="text-lg font-bold">Sightings ({sightings.length})</h2>
+        <ul className="mt-2 space-y-2" data-testid="sighting-list">
+          {sightings.map((s) => {
+            const n = photos.filter((p) => p.sightingId === s.id).length;
+            return (
+              <li key={s.id} className="card flex items-center justify-between gap-2" data-testid="sighting-row">
+                <div>
+                  <p className="font-bold">{speciesName(s.speciesId)} × {s.count}</p>
+                  <p className="text-sm text-shingle-600">
+                    {s.section ? `Section ${s.section}` : "No section"}
+                    {n > 0 && ` · ${n} photo${n > 1 ? "s" : ""}`}
+                    {s.latitude != null && ` · position ±${s.accuracyMetres ?? "?"} m`}
+                    {s.attention && <span className="text-rust-700"> · {s.attention}</span>}
+                  </p>
+                </div>
+                {draft && (
+                  <div className="flex gap-1">
+                    <button type="button" className="btn-quiet" onClick={() => { setEditing(s); setAdding(false); }} aria-label={`Change ${speciesName(s.speciesId)}`}>Change</button>
+                    <button type="button" className="btn-quiet" onClick={() => void deleteSighting(s.id)} aria-label={`Delete ${speciesName(s.speciesId)}`}>Delete</button>
+                  </div>
+                )}
+              </li>
+            );
+          })}
+        </ul>
+      </section>
+
+      {draft && (adding || editing) && (
+        <SightingForm
+          key={editing?.id ?? "new"}
+          visitId={visitId}
+          checklist={checklist}
+          seenHere={seenByTransect[visit.transectId] ?? []}
+          sectionCount={transect?.sectionCount ?? 1}
+          editing={editing ?? undefined}
+          onDone={() => { setAdding(false); setEditing(null); }}
+        />
+      )}
+      {draft && !adding && !editing && !finishing && (
+        <div className="grid gap-2">
+          <button type="button" className="btn-primary h-16 text-lg" onClick={() => setAdding(true)}>+ Add a sighting</button>
+          <button type="button" className="btn-quiet" onClick={() => { setFinishing(true); setEndTime(timeNow()); }}>Finish the walk</button>
+        </div>
+      )}
+
+      {draft && finishing && (
+        <section aria-labelledby="finish-heading" className="card space-y-3">
+          <h2 id="finish-heading" className="text-lg font-bold">Finish and submit</h2>
+          {error && <p role="alert" className="font-bold text-rust-700">{error}</p>}
+          <div>
+            <label htmlFor="endTime" className="field-label">End time</label>
+            <input id="endTime" type="time" className="field-input" value={endTime} onChange={(e) => setEndTime(e.target.value)} />
+          </div>
+          <label className="flex min-h-tap items-start gap-3">
+            <input type="checkbox" className="mt-1 h-6 w-6" checked={completeList} onChange={(e) => setCompleteList(e.target.checked)} />
+            <span>
+              <strong>I recorded every species I could identify.</strong>
+              <br />
+              <span className="text-sm text-shingle-600">Only complete lists tell us what was absent.</span>
+            </span>
+          </label>
+          <div>
+            <label htmlFor="visit-notes" className="field-label">Notes (optional)</label>
+            <textarea id="visit-notes" rows={2} maxLength={2000} className="field-input" value={notes} onChange={(e) => setNotes(e.target.value)} />
+          </div>
+          <p className="rounded-lg bg-shingle-50 p-2">
+            Review: {sightings.length} sighting{sightings.length === 1 ? "" : "s"}, {photos.length} photo{photos.length === 1 ? "" : "s"}, {completeList ? "complete list" : "not a complete list"}.
+          </p>
+          <div className="grid grid-cols-2 gap-2">
+            <button type="button" className="btn-quiet" onClick={() => setFinishing(false)}>Back</button>
+            <button type="button" className="btn-primary" onClick={() => void submit()}>Submit visit</button>
+          </div>
+        </section>
+      )}
+
+      {draft && (
+        <button
+          type="button"
+          className="text-sm text-rust-700 underline"
+          onClick={() => {
+            if (window.confirm("Delete this walk and everything recorded in it?")) void deleteDraftVisit(visitId).then(() => window.location.assign("/field"));
+          }}
+        >
+          Delete this walk
+        </button>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,37 @@
+import { z } from "zod";
+import { skyValues } from "@/lib/sync/contract";
+
+const optionalNumber = (schema: z.ZodNumber) =>
+  z.preprocess((v) => (v === "" || v === null || v === undefined || Number.isNaN(v) ? null : Number(v)), schema.nullable());
+
+/** The start-of-visit form, checked on the phone with the same limits the server applies. */
+export const startVisitSchema = z.object({
+  transectId: z.uuid({ message: "Choose a transect." }),
+  visitDate: z.iso.date({ message: "Choose the date of the walk." }),
+  startTime: z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { message: "Enter the start time, like 10:30." }),
+  temperatureC: optionalNumber(z.number({ message: "Temperature must be a number." }).min(-40, { message: "That is colder than -40 °C." }).max(60, { message: "That is hotter than 60 °C." })),
+  windBeaufort: optionalNumber(z.number().int().min(0).max(12, { message: "Beaufort force runs from 0 to 12." })),
+  cloudCoverPercent: optionalNumber(z.number().int().min(0, { message: "Cloud cover is 0-100%." }).max(100, { message: "Cloud cover is 0-100%." })),
+  sky: z.preprocess((v) => (v === "" ? null : v), z.enum(skyValues).nullable()),
+  coRecorders: z.preprocess((v) => (typeof v === "string" && v.trim() === "" ? null : v), z.string().trim().max(200, { message: "At most 200 characters." }).nullable()),
+});
+export type StartVisitInput = z.input<typeof startVisitSchema>;
+export type StartVisitValues = z.output<typeof startVisitSchema>;
+
+export const skyLabel: Record<(typeof skyValues)[number], string> = {
+  clear: "Clear, full sun",
+  mostly_sunny: "Mostly sunny",
+  broken_cloud: "Sun and cloud",
+  mostly_cloudy: "Mostly cloudy",
+  overcast: "Overcast",
+};
+
+export function todayLocal(): string {
+  const d = new Date();
+  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, "0")}-${String(d.getDate()).padStart(2, "0")}`;
+}
+
+export function timeNow(): string {
+  const d = new Date();
+  return `${String(d.getHours()).padStart(2, "0")}:${String(d.getMinutes()).padStart(2, "0")}`;
+}

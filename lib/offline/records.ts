@@ -1,0 +1,124 @@
+import { fieldDb, type LocalPhoto, type LocalSighting, type LocalVisit } from "./db";
+
+// Local edits. Everything here works with no signal; the outbox sends submitted visits later.
+
+const now = () => new Date().toISOString();
+
+export type NewVisit = Pick<
+  LocalVisit,
+  "transectId" | "visitDate" | "startTime" | "temperatureC" | "windBeaufort" | "cloudCoverPercent" | "sky" | "coRecorders"
+>;
+
+export async function createVisit(input: NewVisit): Promise<string> {
+  const id = crypto.randomUUID();
+  await fieldDb().visits.add({
+    ...input,
+    id,
+    endTime: null,
+    completeList: false,
+    notes: null,
+    phase: "draft",
+    submittedAt: null,
+    updatedAt: now(),
+    outbox: "on-phone",
+    attention: null,
+    attempts: 0,
+  });
+  return id;
+}
+
+async function editableVisit(visitId: string): Promise<LocalVisit> {
+  const visit = await fieldDb().visits.get(visitId);
+  if (!visit) throw new Error("That visit is not on this phone.");
+  if (visit.phase !== "draft") throw new Error("This visit has been submitted and can no longer be changed here.");
+  return visit;
+}
+
+export async function updateVisit(visitId: string, changes: Partial<Omit<LocalVisit, "id" | "phase" | "outbox">>): Promise<void> {
+  await editableVisit(visitId);
+  await fieldDb().visits.update(visitId, { ...changes, updatedAt: now() });
+}
+
+export type NewSighting = Pick<LocalSighting, "speciesId" | "count" | "section" | "latitude" | "longitude" | "accuracyMetres" | "note">;
+
+export async function addSighting(visitId: string, input: NewSighting): Promise<string> {
+  await editableVisit(visitId);
+  const id = crypto.randomUUID();
+  await fieldDb().sightings.add({ ...input, id, visitId, updatedAt: now(), outbox: "on-phone", attention: null });
+  return id;
+}
+
+export async function updateSighting(id: string, changes: Partial<NewSighting>): Promise<void> {
+  const sighting = await fieldDb().sightings.get(id);
+  if (!sighting) throw new Error("That record is not on this phone.");
+  await editableVisit(sighting.visitId);
+  await fieldDb().sightings.update(id, { ...changes, updatedAt: now() });
+}
+
+/** Drafts were never sent, so deleting one removes it outright, with its photos. */
+export async function deleteSighting(id: string): Promise<void> {
+  const db = fieldDb();
+  const sighting = await db.sightings.get(id);
+  if (!sighting) return;
+  await editableVisit(sighting.visitId);
+  await db.transaction("rw", db.sightings, db.photos, async () => {
+    await db.photos.where("sightingId").equals(id).delete();
+    await db.sightings.delete(id);
+  });
+}
+
+export async function addPhoto(visitId: string, sightingId: string | null, file: Blob): Promise<string> {
+  await editableVisit(visitId);
+  const id = crypto.randomUUID();
+  const photo: LocalPhoto = {
+    id,
+    visitId,
+    sightingId,
+    blob: file,
+    contentType: file.type || "application/octet-stream",
+    bytes: file.size,
+    createdAt: now(),
+    outbox: "on-phone",
+    attention: null,
+    attempts: 0,
+  };
+  await fieldDb().photos.add(photo);
+  return id;
+}
+
+export async function removePhoto(id: string): Promise<void> {
+  const photo = await fieldDb().photos.get(id);
+  if (!photo) return;
+  await editableVisit(photo.visitId);
+  await fieldDb().photos.delete(id);
+}
+
+export async function deleteDraftVisit(visitId: string): Promise<void> {
+  const db = fieldDb();
+  await editableVisit(visitId);
+  await db.transaction("rw", db.visits, db.sightings, db.photos, async () => {
+    await db.photos.where("visitId").equals(visitId).delete();
+    await db.sightings.where("visitId").equals(visitId).delete();
+    await db.visits.delete(visitId);
+  });
+}
+
+/** Finishing puts the visit in the outbox; it goes when there is signal. */
+export async function submitVisit(visitId: string, finish: { endTime: string; completeList: boolean; notes: string | null }): Promise<void> {
+  const db = fieldDb();
+  const visit = await editableVisit(visitId);
+  if (finish.endTime < visit.startTime) throw new Error("The end time is before the start time.");
+  const at = now();
+  await db.transaction("rw", db.visits, db.sightings, db.photos, async () => {
+    await db.visits.update(visitId, { ...finish, phase: "submitted", submittedAt: at, updatedAt: at, outbox: "on-phone", attention: null });
+    await db.sightings.where("visitId").equals(visitId).modify({ outbox: "on-phone", attention: null });
+    await db.photos.where("visitId").equals(visitId).modify({ outbox: "on-phone", attention: null });
+  });
+}
+
+/** Lets the volunteer correct a visit the server could not accept, then submit it again. */
+export async function returnToDraft(visitId: string): Promise<void> {
+  const visit = await fieldDb().visits.get(visitId);
+  if (!visit || visit.outbox !== "needs-attention") throw new Error("Only a visit that needs attention can be reopened.");
+  await fieldDb().visits.update(visitId, { phase: "draft", outbox: "on-phone" });
+}

@@ -1,0 +1,56 @@
+import "server-only";
+import { and, asc, eq, inArray, sql } from "drizzle-orm";
+import { db } from "@/db/client";
+import { sightings, species, visits } from "@/db/schema";
+import type { Actor } from "@/lib/auth/guard";
+import { assignedTransects } from "./field";
+import { networkSettingsRow } from "./network";
+
+/**
+ * Everything the field screens need to work with no signal, in one answer the phone caches:
+ * the volunteer's transects, the checklist, what was seen on each transect before, and the
+ * network's conditions rules.
+ */
+export async function fieldReference(actor: Actor) {
+  const [{ season, transects }, checklist, settings] = await Promise.all([
+    assignedTransects(actor),
+    db()
+      .select({
+        id: species.id,
+        scientificName: species.scientificName,
+        vernacularName: species.vernacularName,
+        taxonRank: species.taxonRank,
+        sensitive: species.sensitive,
+        activeMonths: species.activeMonths,
+      })
+      .from(species)
+      .orderBy(asc(species.sortOrder), asc(species.vernacularName)),
+    networkSettingsRow(),
+  ]);
+  const ids = transects.map((t) => t.id);
+  const seen = ids.length
+    ? await db()
+        .select({ transectId: visits.transectId, speciesId: sightings.speciesId, n: sql<number>`count(*)`.mapWith(Number) })
+        .from(sightings)
+        .innerJoin(visits, eq(visits.id, sightings.visitId))
+        .where(and(inArray(visits.transectId, ids), sql`${sightings.status} <> 'rejected'`))
+        .groupBy(visits.transectId, sightings.speciesId)
+    : [];
+  const seenByTransect: Record<string, string[]> = {};
+  for (const row of seen.sort((a, b) => b.n - a.n)) (seenByTransect[row.transectId] ??= []).push(row.speciesId);
+  return {
+    season: season ? { id: season.id, name: season.name, startsOn: season.startsOn, endsOn: season.endsOn, targetVisits: season.targetVisits } : null,
+    transects,
+    checklist,
+    seenByTransect,
+    rules: {
+      minTemperatureC: settings?.minTemperatureC ?? null,
+      maxWindBeaufort: settings?.maxWindBeaufort ?? null,
+      earliestStartTime: settings?.earliestStartTime ?? null,
+      latestStartTime: settings?.latestStartTime ?? null,
+    },
+    savedAt: new Date().toISOString(),
+  };
+}
+
+export type FieldReference = Awaited<ReturnType<typeof fieldReference>>;
