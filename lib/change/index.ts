@@ -29,4 +29,4 @@ export {
   runComparisonChunk,
   type PreparedComparison,
 } from "./compare";
-export { chooseThreads, compareSeasons, defaultThreads, runChunksThreaded, type ThreadOptions } from "./threaded";
+export { chooseThreads, compareSeasons, defaultThreads, runChunksThreaded, type ChunkListener, type ThreadOptions } from "./threaded";

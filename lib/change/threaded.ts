@@ -13,7 +13,10 @@ export interface WorkerData {
   readonly observed: Float64Array;
 }
 export type WorkerTask = { type: "run"; start: number; count: number } | { type: "stop" };
-export type WorkerReply = { type: "ready" } | { type: "counts"; counts: ChunkCounts } | { type: "error"; message: string };
+export type WorkerReply = { type: "ready" } | { type: "counts"; counts: ChunkCounts; threadId: number } | { type: "error"; message: string };
+
+/** Called as each chunk finishes (progress); threadId 0 is the calling thread. */
+export type ChunkListener = (counts: ChunkCounts, threadId: number) => void;
 
 export interface ThreadOptions {
   /** Worker threads; 1 runs in the calling thread. Default: all cores, except for small jobs. */
@@ -42,9 +45,16 @@ export async function runChunksThreaded(
   comparison: PreparedComparison,
   ranges: ReadonlyArray<{ start: number; count: number }>,
   threads: number,
+  onChunk?: ChunkListener,
 ): Promise<ChunkCounts[]> {
   const used = Math.min(threads, ranges.length);
-  if (used <= 1) return ranges.map((range) => runComparisonChunk(comparison, range));
+  if (used <= 1) {
+    return ranges.map((range) => {
+      const counts = runComparisonChunk(comparison, range);
+      onChunk?.(counts, 0);
+      return counts;
+    });
+  }
   const data: WorkerData = {
     prepared: comparison.prepared,
     mode: comparison.options.mode,
@@ -72,7 +82,10 @@ export async function runChunksThreaded(
         };
         worker.on("message", (reply: WorkerReply) => {
           if (reply.type === "error") return fail(new Error(`permutation worker failed: ${reply.message}`));
-          if (reply.type === "counts") results.push(reply.counts);
+          if (reply.type === "counts") {
+            results.push(reply.counts);
+            onChunk?.(reply.counts, reply.threadId);
+          }
           feed();
         });
         worker.on("error", fail);
@@ -91,10 +104,10 @@ export async function runChunksThreaded(
 export async function compareSeasons(
   before: SpeciesTable,
   after: SpeciesTable,
-  options: CompareOptions & ThreadOptions = {},
+  options: CompareOptions & ThreadOptions & { onChunk?: ChunkListener } = {},
 ): Promise<ChangeResult> {
   const comparison = prepareComparison(before, after, options);
   const threads = chooseThreads(comparison, options.threads);
-  const chunks = await runChunksThreaded(comparison, comparisonChunks(comparison), threads);
+  const chunks = await runChunksThreaded(comparison, comparisonChunks(comparison), threads, options.onChunk);
   return finishComparison(comparison, chunks);
 }

@@ -1,5 +1,5 @@
 // Permutation worker thread: receives ranges, answers with their counts (see threaded.ts).
-import { parentPort, workerData } from "node:worker_threads";
+import { parentPort, threadId, workerData } from "node:worker_threads";
 import { runPermutationChunk } from "./permutation";
 import type { WorkerData, WorkerReply, WorkerTask } from "./threaded";
 
@@ -15,7 +15,7 @@ port.on("message", (task: WorkerTask) => {
   let reply: WorkerReply;
   try {
     const counts = runPermutationChunk({ ...data, start: task.start, count: task.count });
-    reply = { type: "counts", counts };
+    reply = { type: "counts", counts, threadId };
   } catch (error) {
     reply = { type: "error", message: error instanceof Error ? error.message : String(error) };
   }

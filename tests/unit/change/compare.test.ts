@@ -1,0 +1,82 @@
+import { describe, expect, it } from "vitest";
+import { compareSeasonsSync, comparisonChunks, finishComparison, prepareComparison, resolveOptions, runComparisonChunk } from "../../../lib/change/compare";
+import { siteParts } from "../../../lib/change/indices";
+import { pairedTTest } from "../../../lib/change/paired-test";
+import { randomPair, table } from "./support";
+
+describe("compareSeasonsSync", () => {
+  const { before, after } = randomPair(31, 25, 12, 0.3);
+
+  it("reports per-site parts that match the per-site formula", () => {
+    const result = compareSeasonsSync(before, after, { index: "ruzicka", permutations: 19 });
+    for (const s of result.sites) {
+      const i = before.sites.indexOf(s.site);
+      const expected = siteParts(before.values[i]!, after.values[i]!, "ruzicka")!;
+      expect(s).toMatchObject({ shared: expected.shared, lost: expected.lost, gained: expected.gained, direction: expected.direction });
+      expect(s.dissimilarity).toBeCloseTo(expected.dissimilarity, 12);
+    }
+  });
+
+  it("summarises means, shares and direction over the compared sites", () => {
+    const r = compareSeasonsSync(before, after, { permutations: 0 });
+    const mean = (f: (s: (typeof r.sites)[number]) => number) => r.sites.reduce((a, s) => a + f(s), 0) / r.sites.length;
+    expect(r.summary.meanLosses!).toBeCloseTo(mean((s) => s.losses), 12);
+    expect(r.summary.meanGains!).toBeCloseTo(mean((s) => s.gains), 12);
+    expect(r.summary.meanDissimilarity!).toBeCloseTo(mean((s) => s.dissimilarity), 12);
+    expect(r.summary.lossShare! + r.summary.gainShare!).toBeCloseTo(1, 12);
+    expect(r.summary.direction).toBe(r.summary.meanGains! > r.summary.meanLosses! ? "gain" : "loss");
+    const t = pairedTTest(r.sites.map((s) => s.gains), r.sites.map((s) => s.losses), { permutations: 0, seed: 1 });
+    expect(r.pairedTest).toEqual(t);
+  });
+
+  it("with 0 permutations gives null p-values, no exceptional sites and no minimum p", () => {
+    const r = compareSeasonsSync(before, after, { permutations: 0 });
+    expect(r.minimumP).toBeNull();
+    expect(r.pairedTest.pPermutation).toBeNull();
+    expect(r.pairedTest.p).not.toBeNull();
+    for (const s of r.sites) expect(s).toMatchObject({ p: null, pAdjusted: null, exceptional: false });
+  });
+
+  it("reports the minimum possible p, 1/(R+1), and p-values on that grid", () => {
+    const r = compareSeasonsSync(before, after, { permutations: 49 });
+    expect(r.minimumP).toBe(1 / 50);
+    for (const s of r.sites) {
+      expect(s.p! * 50).toBeCloseTo(Math.round(s.p! * 50), 9);
+      expect(s.p!).toBeGreaterThanOrEqual(r.minimumP!);
+    }
+  });
+
+  it("is reproducible for one seed and changes with the seed", () => {
+    const a = compareSeasonsSync(before, after, { permutations: 99, seed: 4 });
+    expect(compareSeasonsSync(before, after, { permutations: 99, seed: 4 })).toEqual(a);
+    expect(compareSeasonsSync(before, after, { permutations: 99, seed: 5 }).sites.map((s) => s.p)).not.toEqual(a.sites.map((s) => s.p));
+  });
+
+  it("handles a single compared site and no compared site without crashing", () => {
+    const one = compareSeasonsSync(table([[1, 2]]), table([[0, 2]]), { permutations: 9 });
+    expect(one.sites).toHaveLength(1);
+    expect(one.pairedTest).toMatchObject({ n: 1, t: null, df: null, p: null, pPermutation: null });
+    const none = compareSeasonsSync(table([[0, 0]]), table([[0, 0]]), { permutations: 9 });
+    expect(none.sites).toEqual([]);
+    expect(none.excluded).toEqual([{ site: "S1", reason: "no species recorded in either season" }]);
+    expect(none.summary).toEqual({ meanLosses: null, meanGains: null, meanDissimilarity: null, lossShare: null, gainShare: null, direction: null });
+    expect(none.pairedTest.n).toBe(0);
+  });
+
+  it("job-queue path (prepare, run chunks anywhere, finish) equals the one-call result", () => {
+    const options = { permutations: 130, seed: 9, mode: "independent" as const };
+    const comparison = prepareComparison(before, after, options);
+    // Chunks may be planned with any size and finish in any order.
+    const chunks = comparisonChunks(comparison, 17).map((range) => runComparisonChunk(comparison, range)).reverse();
+    const viaJson = JSON.parse(JSON.stringify(chunks));
+    expect(finishComparison(comparison, viaJson)).toEqual(compareSeasonsSync(before, after, options));
+  });
+
+  it("applies defaults and rejects bad options", () => {
+    expect(resolveOptions()).toEqual({ index: "percentage-difference", permutations: 9999, seed: 1, mode: "paired", adjust: "holm", alpha: 0.05 });
+    expect(() => resolveOptions({ permutations: -1 })).toThrow(RangeError);
+    expect(() => resolveOptions({ permutations: 2.5 })).toThrow(RangeError);
+    expect(() => resolveOptions({ alpha: 0 })).toThrow(RangeError);
+    expect(() => resolveOptions({ index: "bray" as never })).toThrow(/unknown index/);
+  });
+});
