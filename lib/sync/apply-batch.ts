@@ -1,0 +1,89 @@
+import "server-only";
+import { db, type Transaction } from "@/db/client";
+import type { Actor } from "@/lib/auth/guard";
+import { invalid } from "@/lib/errors";
+import { fieldErrorsOf } from "@/lib/validation";
+import {
+  batchStatus,
+  sightingPayload,
+  syncEnvelope,
+  visitPayload,
+  type ItemResult,
+  type SightingPayload,
+  type SyncResponse,
+  type VisitPayload,
+} from "./contract";
+import { parseItems, type ParsedItems } from "./parse";
+import { loadServerState } from "./server-state";
+import { planSightings } from "./sightings";
+import { planVisits, serverStanding, type VisitStanding } from "./visits";
+import { BatchRaced, deletePendingSightings, upsertSightings, upsertVisits } from "./write";
+
+export type SyncOutcome = { status: 200 | 400 | 403; response: SyncResponse };
+
+const MAX_ATTEMPTS = 3;
+// Serialization failure, deadlock, unique violation: all mean a parallel writer got there first.
+const RETRYABLE_CODES = new Set(["40001", "40P01", "23505"]);
+
+function isRetryable(error: unknown): boolean {
+  for (let e: unknown = error; e; e = (e as { cause?: unknown }).cause) {
+    if (e instanceof BatchRaced) return true;
+    const code = (e as { code?: unknown }).code;
+    if (typeof code === "string" && RETRYABLE_CODES.has(code)) return true;
+  }
+  return false;
+}
+
+const byIndex = (a: ItemResult, b: ItemResult) => a.index - b.index;
+
+type ParsedBatch = { visits: ParsedItems<VisitPayload>; sightings: ParsedItems<SightingPayload> };
+
+async function applyInTransaction(tx: Transaction, actor: Actor, batch: ParsedBatch): Promise<ItemResult[]> {
+  const { visits: parsedVisits, sightings: parsedSightings } = batch;
+  const visitItems = parsedVisits.valid.map((v) => v.value);
+  const sightingItems = parsedSightings.valid.map((s) => s.value);
+
+  const state = await loadServerState(tx, actor, {
+    transectIds: [...new Set(visitItems.map((v) => v.transectId))],
+    visitIds: [...new Set([...visitItems.map((v) => v.id), ...sightingItems.map((s) => s.visitId)])],
+    sightingIds: sightingItems.map((s) => s.id),
+    speciesIds: [...new Set(sightingItems.filter((s) => !s.deleted).map((s) => s.speciesId))],
+  });
+
+  const visitPlan = planVisits(actor, parsedVisits.valid, state);
+  const standingOf = (visitId: string): VisitStanding => visitPlan.standings.get(visitId) ?? serverStanding(actor, visitId, state);
+  const sightingPlan = planSightings(actor.id, parsedSightings.valid, state, standingOf);
+
+  // Visits first: new sightings reference them.
+  await upsertVisits(tx, visitPlan.writes);
+  await upsertSightings(tx, actor.id, sightingPlan.writes);
+  await deletePendingSightings(tx, sightingPlan.deletes);
+
+  return [
+    ...[...visitPlan.results, ...parsedVisits.rejected].sort(byIndex),
+    ...[...sightingPlan.results, ...parsedSightings.rejected].sort(byIndex),
+  ];
+}
+
+/**
+ * Applies one batch from a volunteer's phone: validates the envelope (a malformed one is a 400
+ * AppError), then every item on its own, and writes all accepted items in one transaction.
+ * Safe to resend: ids come from the phone, so a repeat reports "unchanged" and writes nothing.
+ */
+export async function applySyncBatch(actor: Actor, body: unknown): Promise<SyncOutcome> {
+  const envelope = syncEnvelope.safeParse(body);
+  if (!envelope.success) throw invalid(fieldErrorsOf(envelope.error), "The sync batch is not in the expected shape.");
+  const batch: ParsedBatch = {
+    visits: parseItems("visit", envelope.data.visits, visitPayload),
+    sightings: parseItems("sighting", envelope.data.sightings, sightingPayload),
+  };
+
+  for (let attempt = 1; ; attempt++) {
+    try {
+      const results = await db().transaction((tx) => applyInTransaction(tx, actor, batch));
+      return { status: batchStatus(results), response: { results, serverTime: new Date().toISOString() } };
+    } catch (error) {
+      if (attempt >= MAX_ATTEMPTS || !isRetryable(error)) throw error;
+    }
+  }
+}

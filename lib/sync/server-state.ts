@@ -1,0 +1,78 @@
+import "server-only";
+import { and, eq, getTableColumns, inArray, sql } from "drizzle-orm";
+import type { Transaction } from "@/db/client";
+import { seasons, sightings, species, transectAssignments, transects, visits } from "@/db/schema";
+import type { Actor } from "@/lib/auth/guard";
+
+export type ServerVisit = typeof visits.$inferSelect & { sectionCount: number; hasReviewed: boolean };
+export type ServerSighting = typeof sightings.$inferSelect & { ownerId: string };
+export type SeasonSpan = { id: string; startsOn: string; endsOn: string };
+
+/** Everything one batch needs to know about the server, read in a fixed handful of queries. */
+export type ServerState = {
+  /** Section counts of the batch's transects that the volunteer is assigned to. */
+  assigned: Map<string, number>;
+  visits: Map<string, ServerVisit>;
+  sightings: Map<string, ServerSighting>;
+  knownSpecies: Set<string>;
+  seasons: SeasonSpan[];
+};
+
+export type StateKeys = { transectIds: string[]; visitIds: string[]; sightingIds: string[]; speciesIds: string[] };
+
+const reviewedSightingOfVisit = sql<boolean>`exists (select 1 from ${sightings} s where s.visit_id = ${visits.id} and (s.status <> 'pending' or s.reviewed_at is not null))`;
+
+/**
+ * Reads the batch's server state inside its transaction. Existing visits and sightings are
+ * locked (FOR UPDATE) so a coordinator's review or a parallel resend cannot slip in between
+ * this read and the batch's writes. The queries are issued together: postgres-js pipelines
+ * them on the transaction's connection, so they cost about one round trip.
+ */
+export async function loadServerState(tx: Transaction, actor: Actor, keys: StateKeys): Promise<ServerState> {
+  const none = Promise.resolve([] as never[]);
+  const [assignedRows, visitRows, sightingRows, speciesRows, seasonRows] = await Promise.all([
+    keys.transectIds.length
+      ? tx
+          .select({ id: transects.id, sectionCount: transects.sectionCount })
+          .from(transectAssignments)
+          .innerJoin(transects, eq(transects.id, transectAssignments.transectId))
+          .where(and(eq(transectAssignments.userId, actor.id), inArray(transectAssignments.transectId, keys.transectIds)))
+      : none,
+    keys.visitIds.length
+      ? tx
+          .select({ ...getTableColumns(visits), sectionCount: transects.sectionCount, hasReviewed: reviewedSightingOfVisit })
+          .from(visits)
+          .innerJoin(transects, eq(transects.id, visits.transectId))
+          .where(inArray(visits.id, keys.visitIds))
+          .orderBy(visits.id)
+          .for("update", { of: visits })
+      : none,
+    keys.sightingIds.length
+      ? tx
+          .select({ ...getTableColumns(sightings), ownerId: visits.volunteerId })
+          .from(sightings)
+          .innerJoin(visits, eq(visits.id, sightings.visitId))
+          .where(inArray(sightings.id, keys.sightingIds))
+          .orderBy(sightings.id)
+          .for("update", { of: sightings })
+      : none,
+    keys.speciesIds.length ? tx.select({ id: species.id }).from(species).where(inArray(species.id, keys.speciesIds)) : none,
+    keys.visitIds.length ? tx.select({ id: seasons.id, startsOn: seasons.startsOn, endsOn: seasons.endsOn }).from(seasons) : none,
+  ]);
+  return {
+    assigned: new Map(assignedRows.map((r) => [r.id, r.sectionCount])),
+    visits: new Map(visitRows.map((v) => [v.id, v])),
+    sightings: new Map(sightingRows.map((s) => [s.id, s])),
+    knownSpecies: new Set(speciesRows.map((s) => s.id)),
+    seasons: seasonRows,
+  };
+}
+
+/** The season whose dates contain the visit date (the latest-starting one if seasons overlap). */
+export function seasonFor(date: string, spans: SeasonSpan[]): string | null {
+  let best: SeasonSpan | null = null;
+  for (const s of spans) {
+    if (s.startsOn <= date && date <= s.endsOn && (!best || s.startsOn > best.startsOn)) best = s;
+  }
+  return best?.id ?? null;
+}

@@ -1,0 +1,294 @@
+import { randomUUID } from "node:crypto";
+import { asc, count, eq, inArray, ne } from "drizzle-orm";
+import { beforeEach, describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { seasons, sightings, species, transectAssignments, transects, users, visits } from "@/db/schema";
+import type { Actor } from "@/lib/auth/guard";
+import { applySyncBatch } from "@/lib/sync/apply-batch";
+import { resetToDemo } from "./support/db";
+
+async function actorFor(email: string): Promise<Actor> {
+  const [u] = await db().select().from(users).where(eq(users.email, email));
+  return { id: u!.id, role: u!.role, name: u!.name, email: u!.email };
+}
+
+function visitOf(transectId: string, over: Record<string, unknown> = {}) {
+  return {
+    id: randomUUID(),
+    transectId,
+    visitDate: "2026-05-14",
+    startTime: "10:30",
+    endTime: "11:45",
+    temperatureC: 17.5,
+    windBeaufort: 2,
+    cloudCoverPercent: 40,
+    sky: "broken_cloud",
+    completeList: true,
+    notes: "Sheltered on the lower slope.",
+    clientUpdatedAt: "2026-05-14T11:50:00.000Z",
+    ...over,
+  };
+}
+
+function sightingOf(visitId: string, speciesId: string, over: Record<string, unknown> = {}) {
+  return {
+    id: randomUUID(),
+    visitId,
+    speciesId,
+    count: 3,
+    section: 1,
+    latitude: 51.2,
+    longitude: -1.3,
+    accuracyMetres: 8,
+    note: null,
+    clientUpdatedAt: "2026-05-14T11:00:00.000Z",
+    ...over,
+  };
+}
+
+async function rowCounts() {
+  const [v] = await db().select({ n: count() }).from(visits);
+  const [s] = await db().select({ n: count() }).from(sightings);
+  return { visits: v!.n, sightings: s!.n };
+}
+
+async function storedSighting(id: string) {
+  const [row] = await db().select().from(sightings).where(eq(sightings.id, id));
+  return row;
+}
+
+describe("applying a sync batch from a volunteer's phone", () => {
+  let actor: Actor;
+  let transect: { id: string; sectionCount: number };
+  let theirTransectId: string;
+  let theirVisitId: string;
+  let speciesIds: string[];
+
+  beforeEach(async () => {
+    await resetToDemo();
+    actor = await actorFor("volunteer01@harrowmere.example");
+    const mine = await db()
+      .select({ id: transects.id, sectionCount: transects.sectionCount })
+      .from(transectAssignments)
+      .innerJoin(transects, eq(transects.id, transectAssignments.transectId))
+      .where(eq(transectAssignments.userId, actor.id))
+      .orderBy(asc(transects.code));
+    transect = mine[0]!;
+    const [other] = await db().select().from(transectAssignments).where(ne(transectAssignments.userId, actor.id)).limit(1);
+    theirTransectId = other!.transectId;
+    const [theirVisit] = await db().select({ id: visits.id }).from(visits).where(eq(visits.volunteerId, other!.userId)).limit(1);
+    theirVisitId = theirVisit!.id;
+    speciesIds = (await db().select({ id: species.id }).from(species).orderBy(asc(species.sortOrder)).limit(3)).map((s) => s.id);
+  });
+
+  it("stores a new visit with its sightings and derives the season from the visit date", async () => {
+    const inSeason = visitOf(transect.id);
+    const outOfSeason = visitOf(transect.id, { visitDate: "2024-12-01" });
+    const batch = {
+      visits: [inSeason, outOfSeason],
+      sightings: [sightingOf(inSeason.id, speciesIds[0]!), sightingOf(inSeason.id, speciesIds[1]!, { section: transect.sectionCount, count: 0 })],
+    };
+    const { status, response } = await applySyncBatch(actor, batch);
+    expect(status).toBe(200);
+    expect(response.results.map((r) => [r.kind, r.index, r.status])).toEqual([
+      ["visit", 0, "created"],
+      ["visit", 1, "created"],
+      ["sighting", 0, "created"],
+      ["sighting", 1, "created"],
+    ]);
+    expect(Date.parse(response.serverTime)).not.toBeNaN();
+
+    const [season2026] = await db().select().from(seasons).where(eq(seasons.name, "2026 season"));
+    const stored = await db().select().from(visits).where(inArray(visits.id, [inSeason.id, outOfSeason.id]));
+    const byId = new Map(stored.map((v) => [v.id, v]));
+    expect(byId.get(inSeason.id)).toMatchObject({ seasonId: season2026!.id, volunteerId: actor.id, startTime: "10:30:00", notes: "Sheltered on the lower slope." });
+    expect(byId.get(outOfSeason.id)!.seasonId).toBeNull();
+    expect(await storedSighting(batch.sightings[1]!.id)).toMatchObject({ count: 0, section: transect.sectionCount, status: "pending" });
+  });
+
+  it("a resent batch creates no duplicates and reports every item unchanged", async () => {
+    const visit = visitOf(transect.id);
+    const batch = { visits: [visit], sightings: speciesIds.map((sp) => sightingOf(visit.id, sp)) };
+    await applySyncBatch(actor, batch);
+    const before = await rowCounts();
+    const again = await applySyncBatch(actor, structuredClone(batch));
+    expect(again.status).toBe(200);
+    expect(again.response.results.map((r) => r.status)).toEqual(["unchanged", "unchanged", "unchanged", "unchanged"]);
+    expect(await rowCounts()).toEqual(before);
+  });
+
+  it("two copies of a batch arriving at once still land exactly once", async () => {
+    const visit = visitOf(transect.id);
+    const batch = { visits: [visit], sightings: speciesIds.map((sp) => sightingOf(visit.id, sp)) };
+    const before = await rowCounts();
+    const outcomes = await Promise.all([applySyncBatch(actor, batch), applySyncBatch(actor, structuredClone(batch))]);
+    for (const o of outcomes) expect(o.status).toBe(200);
+    expect(await rowCounts()).toEqual({ visits: before.visits + 1, sightings: before.sightings + 3 });
+  });
+
+  it("refuses a visit on a transect the volunteer is not assigned to with 403 and writes nothing for it", async () => {
+    const before = await rowCounts();
+    const visit = visitOf(theirTransectId);
+    const { status, response } = await applySyncBatch(actor, { visits: [visit], sightings: [sightingOf(visit.id, speciesIds[0]!)] });
+    expect(status).toBe(403);
+    expect(response.results).toEqual([
+      { kind: "visit", id: visit.id, index: 0, status: "forbidden", reason: "You are not assigned to that transect." },
+      { kind: "sighting", id: expect.any(String), index: 0, status: "forbidden", reason: "You are not assigned to that transect." },
+    ]);
+    expect(await rowCounts()).toEqual(before);
+  });
+
+  it("answers malformed items with per-field messages (400) while storing the good ones", async () => {
+    const good = visitOf(transect.id);
+    const bad = visitOf(transect.id, { windBeaufort: 15, sky: "purple" });
+    const goodSighting = sightingOf(good.id, speciesIds[0]!);
+    const batch = {
+      visits: [bad, good],
+      sightings: [sightingOf(good.id, speciesIds[1]!, { count: -2 }), goodSighting, { nonsense: true }, sightingOf(bad.id, speciesIds[2]!)],
+    };
+    const { status, response } = await applySyncBatch(actor, batch);
+    expect(status).toBe(400);
+    const [badVisit, goodVisit, negative, storedOne, junk, orphan] = response.results;
+    expect(badVisit).toMatchObject({ kind: "visit", index: 0, id: bad.id, status: "invalid" });
+    expect(badVisit!.errors).toEqual({ windBeaufort: ["Beaufort force runs from 0 to 12."], sky: [expect.any(String)] });
+    expect(goodVisit).toMatchObject({ index: 1, status: "created" });
+    expect(negative).toMatchObject({ index: 0, status: "invalid", errors: { count: ["Count cannot be negative."] } });
+    expect(storedOne).toMatchObject({ index: 1, id: goodSighting.id, status: "created" });
+    expect(junk).toMatchObject({ index: 2, id: null, status: "invalid" });
+    expect(Object.keys(junk!.errors!)).toEqual(expect.arrayContaining(["id", "visitId", "speciesId", "count", "clientUpdatedAt"]));
+    expect(orphan).toMatchObject({ index: 3, status: "invalid", reason: "unknown visit", errors: { visitId: [expect.any(String)] } });
+
+    const [stored] = await db().select().from(visits).where(eq(visits.id, good.id));
+    expect(stored).toBeDefined();
+    expect(await storedSighting(goodSighting.id)).toBeDefined();
+    expect(await db().select().from(visits).where(eq(visits.id, bad.id))).toHaveLength(0);
+  });
+
+  it("refuses a malformed envelope as a whole with field messages", async () => {
+    await expect(applySyncBatch(actor, { visits: "lots", sightings: Array(501).fill({}) })).rejects.toMatchObject({
+      status: 400,
+      fieldErrors: { visits: [expect.any(String)], sightings: [expect.any(String)] },
+    });
+    await expect(applySyncBatch(actor, null)).rejects.toMatchObject({ status: 400 });
+  });
+
+  it("refuses a second copy of one id inside a batch", async () => {
+    const visit = visitOf(transect.id);
+    const s = sightingOf(visit.id, speciesIds[0]!);
+    const { response } = await applySyncBatch(actor, { visits: [visit], sightings: [s, { ...s, count: 9 }] });
+    expect(response.results.map((r) => r.status)).toEqual(["created", "created", "invalid"]);
+    expect((await storedSighting(s.id))!.count).toBe(3);
+  });
+
+  it("never overwrites or deletes a sighting a coordinator has reviewed", async () => {
+    const visit = visitOf(transect.id);
+    const s = sightingOf(visit.id, speciesIds[0]!, { count: 4 });
+    await applySyncBatch(actor, { visits: [visit], sightings: [s] });
+    await db().update(sightings).set({ status: "accepted", reviewedAt: new Date() }).where(eq(sightings.id, s.id));
+
+    const later = { ...s, count: 40, clientUpdatedAt: "2026-05-15T09:00:00.000Z" };
+    const changed = await applySyncBatch(actor, { sightings: [later] });
+    expect(changed.status).toBe(200);
+    expect(changed.response.results[0]).toMatchObject({ status: "kept-server", reason: expect.stringContaining("reviewed") });
+    expect((await storedSighting(s.id))!.count).toBe(4);
+
+    const removal = await applySyncBatch(actor, { sightings: [{ ...later, deleted: true }] });
+    expect(removal.response.results[0]!.status).toBe("kept-server");
+    expect(await storedSighting(s.id)).toBeDefined();
+  });
+
+  it("keeps a visit's server fields once one of its sightings is reviewed, but still accepts new sightings for it", async () => {
+    const visit = visitOf(transect.id);
+    const s = sightingOf(visit.id, speciesIds[0]!);
+    await applySyncBatch(actor, { visits: [visit], sightings: [s] });
+    await db().update(sightings).set({ status: "queried", reviewedAt: new Date() }).where(eq(sightings.id, s.id));
+
+    const edited = { ...visit, notes: "Rewritten later", clientUpdatedAt: "2026-05-16T08:00:00.000Z" };
+    const extra = sightingOf(visit.id, speciesIds[1]!);
+    const { status, response } = await applySyncBatch(actor, { visits: [edited], sightings: [extra] });
+    expect(status).toBe(200);
+    expect(response.results.map((r) => r.status)).toEqual(["kept-server", "created"]);
+    const [stored] = await db().select().from(visits).where(eq(visits.id, visit.id));
+    expect(stored!.notes).toBe("Sheltered on the lower slope.");
+    expect(await storedSighting(extra.id)).toBeDefined();
+  });
+
+  it("last writer wins by clientUpdatedAt: an older edit is kept out, a newer one lands", async () => {
+    const visit = visitOf(transect.id, { clientUpdatedAt: "2026-05-14T12:00:00.000Z" });
+    const s = sightingOf(visit.id, speciesIds[0]!, { count: 5, clientUpdatedAt: "2026-05-14T12:00:00.000Z" });
+    await applySyncBatch(actor, { visits: [visit], sightings: [s] });
+
+    const older = await applySyncBatch(actor, {
+      visits: [{ ...visit, notes: "stale", clientUpdatedAt: "2026-05-14T11:00:00.000Z" }],
+      sightings: [{ ...s, count: 1, clientUpdatedAt: "2026-05-14T11:00:00.000Z" }],
+    });
+    expect(older.response.results.map((r) => [r.status, r.reason])).toEqual([
+      ["kept-server", "The server holds a newer edit of this visit."],
+      ["kept-server", "The server holds a newer edit of this sighting."],
+    ]);
+    expect((await storedSighting(s.id))!.count).toBe(5);
+
+    const newer = await applySyncBatch(actor, { sightings: [{ ...s, count: 8, section: null, clientUpdatedAt: "2026-05-14T13:00:00.000Z" }] });
+    expect(newer.response.results[0]!.status).toBe("updated");
+    expect(await storedSighting(s.id)).toMatchObject({ count: 8, section: null });
+  });
+
+  it("deletes a pending sighting on request; deleting one already gone is unchanged", async () => {
+    const visit = visitOf(transect.id);
+    const s = sightingOf(visit.id, speciesIds[0]!);
+    await applySyncBatch(actor, { visits: [visit], sightings: [s] });
+    const gone = { ...s, deleted: true, clientUpdatedAt: "2026-05-14T11:30:00.000Z" };
+    const first = await applySyncBatch(actor, { sightings: [gone] });
+    expect(first.response.results[0]!.status).toBe("deleted");
+    expect(await storedSighting(s.id)).toBeUndefined();
+    const again = await applySyncBatch(actor, { sightings: [gone] });
+    expect(again.status).toBe(200);
+    expect(again.response.results[0]!.status).toBe("unchanged");
+  });
+
+  it("refuses sightings for another volunteer's visit, and edits to another volunteer's sighting", async () => {
+    const before = await rowCounts();
+    const intruder = sightingOf(theirVisitId, speciesIds[0]!);
+    const [theirs] = await db().select().from(sightings).where(eq(sightings.visitId, theirVisitId)).limit(1);
+    const ownVisit = visitOf(transect.id);
+    const hijack = sightingOf(ownVisit.id, speciesIds[0]!, { id: theirs!.id, count: 999, clientUpdatedAt: "2030-01-01T00:00:00.000Z" });
+    const { status, response } = await applySyncBatch(actor, { visits: [ownVisit], sightings: [intruder, hijack] });
+    expect(status).toBe(403);
+    expect(response.results.map((r) => [r.kind, r.status])).toEqual([
+      ["visit", "created"],
+      ["sighting", "forbidden"],
+      ["sighting", "forbidden"],
+    ]);
+    expect(await rowCounts()).toEqual({ visits: before.visits + 1, sightings: before.sightings });
+    expect((await storedSighting(theirs!.id))!.count).toBe(theirs!.count);
+  });
+
+  it("refuses someone else's visit id even on the volunteer's own transect", async () => {
+    const [theirs] = await db().select().from(visits).where(eq(visits.id, theirVisitId));
+    const { status, response } = await applySyncBatch(actor, { visits: [visitOf(transect.id, { id: theirs!.id })] });
+    expect(status).toBe(403);
+    expect(response.results[0]).toMatchObject({ status: "forbidden", reason: "This visit belongs to another volunteer." });
+    const [after] = await db().select().from(visits).where(eq(visits.id, theirVisitId));
+    expect(after).toEqual(theirs);
+  });
+
+  it("answers an unknown species or a section beyond the transect as invalid fields, not a server error", async () => {
+    const visit = visitOf(transect.id);
+    const unknownSpecies = sightingOf(visit.id, randomUUID());
+    const farSection = sightingOf(visit.id, speciesIds[0]!, { section: transect.sectionCount + 1 });
+    const { status, response } = await applySyncBatch(actor, { visits: [visit], sightings: [unknownSpecies, farSection] });
+    expect(status).toBe(400);
+    expect(response.results[1]).toMatchObject({ status: "invalid", errors: { speciesId: ["That species is not on the checklist."] } });
+    expect(response.results[2]).toMatchObject({ status: "invalid", errors: { section: [`This transect has ${transect.sectionCount} sections.`] } });
+    expect(await db().select().from(sightings).where(eq(sightings.visitId, visit.id))).toHaveLength(0);
+  });
+
+  it("accepts sightings for a visit already stored, sent in a later batch", async () => {
+    const visit = visitOf(transect.id);
+    await applySyncBatch(actor, { visits: [visit] });
+    const s = sightingOf(visit.id, speciesIds[2]!);
+    const { status, response } = await applySyncBatch(actor, { sightings: [s] });
+    expect(status).toBe(200);
+    expect(response.results[0]!.status).toBe("created");
+  });
+});
