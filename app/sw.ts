@@ -23,7 +23,7 @@ const serwist = new Serwist({
   runtimeCaching: [
     {
       matcher: ({ request, url, sameOrigin }) => sameOrigin && request.mode === "navigate" && fieldPage(url.pathname),
-      handler: new NetworkFirst({ cacheName: "turnstone-field-pages", networkTimeoutSeconds: 5, matchOptions: { ignoreSearch: true } }),
+      handler: new NetworkFirst({ cacheName: "turnstone-field-pages", networkTimeoutSeconds: 5, matchOptions: { ignoreSearch: true, ignoreVary: true } }),
     },
     ...defaultCache,
   ],

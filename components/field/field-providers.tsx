@@ -4,16 +4,25 @@ import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useEffect, useState } from "react";
 import { startSyncController } from "@/lib/offline/sync-controller";
 
-// Field routes a volunteer may open with no signal: fetched once online so the service
-// worker holds a copy of each.
+// Field routes a volunteer may open with no signal: stored once online in the cache the
+// service worker answers field navigations from (the name must match app/sw.ts).
 const fieldRoutes = ["/field", "/field/visit", "/field/records", "/safety"];
+export const FIELD_PAGES_CACHE = "turnstone-field-pages";
 
 async function registerServiceWorker() {
   if (!("serviceWorker" in navigator)) return;
   try {
     await navigator.serviceWorker.register("/sw.js", { scope: "/" });
     await navigator.serviceWorker.ready;
-    if (navigator.onLine) await Promise.all(fieldRoutes.map((r) => fetch(r, { credentials: "same-origin" }).catch(() => undefined)));
+    if (navigator.onLine && "caches" in window) {
+      const cache = await caches.open(FIELD_PAGES_CACHE);
+      await Promise.all(
+        fieldRoutes.map(async (route) => {
+          const res = await fetch(route, { credentials: "same-origin" }).catch(() => null);
+          if (res?.ok && !res.redirected) await cache.put(route, res);
+        }),
+      );
+    }
   } catch {
     // Without a service worker the app still works online; the outbox still keeps records.
   }

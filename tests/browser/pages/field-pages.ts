@@ -1,0 +1,72 @@
+import type { Page } from "playwright-core";
+
+/** Page object for the volunteer's field home. */
+export class FieldHomePage {
+  constructor(private readonly page: Page) {}
+
+  async open() {
+    await this.page.goto("/field");
+    await this.page.getByTestId("assigned-transect").first().waitFor();
+  }
+
+  /** Waits until the service worker controls the page and the field pages are cached. */
+  async waitUntilReadyOffline() {
+    await this.page.waitForFunction(async () => {
+      if (!navigator.serviceWorker.controller) return false;
+      const cache = await caches.open("turnstone-field-pages");
+      const keys = (await cache.keys()).map((r) => new URL(r.url).pathname);
+      return ["/field", "/field/visit"].every((p) => keys.includes(p));
+    }, undefined, { timeout: 30_000, polling: 250 });
+  }
+
+  async startVisitOnFirstTransect() {
+    await this.page.getByRole("link", { name: "Start a visit" }).first().click();
+  }
+
+  outboxCount(state: "on-phone" | "sending" | "sent" | "needs-attention") {
+    return this.page.getByTestId(`outbox-${state}`).textContent().then(Number);
+  }
+
+  outboxSummary() {
+    return this.page.getByTestId("outbox-summary").textContent();
+  }
+}
+
+/** Page object for starting and recording a visit. */
+export class VisitPage {
+  constructor(private readonly page: Page) {}
+
+  async acknowledgeSafetyIfAsked() {
+    const button = this.page.getByRole("button", { name: "I have read this and will take care" });
+    if (await button.isVisible().catch(() => false)) await button.click();
+  }
+
+  async start(conditions: { temperature: string; wind: string }) {
+    await this.page.getByLabel("Temperature (°C)").fill(conditions.temperature);
+    await this.page.getByLabel("Wind (Beaufort force)").selectOption(conditions.wind);
+    await this.page.getByRole("button", { name: "Start recording" }).click();
+    await this.page.getByRole("button", { name: "+ Add a sighting" }).waitFor();
+  }
+
+  async addSighting(s: { search: string; count: number; section?: number; photo?: { name: string; mimeType: string; buffer: Buffer } }) {
+    await this.page.getByRole("button", { name: "+ Add a sighting" }).click();
+    await this.page.getByLabel("Species").fill(s.search);
+    await this.page.getByRole("list", { name: "Matching species" }).getByRole("button").first().click();
+    for (let i = 1; i < s.count; i++) await this.page.getByRole("button", { name: "More (Count)" }).click();
+    if (s.section) await this.page.getByLabel("Section").selectOption(String(s.section));
+    if (s.photo) await this.page.getByLabel("Photos (optional)").setInputFiles(s.photo);
+    await this.page.getByRole("button", { name: "Save record" }).click();
+    await this.page.getByRole("button", { name: "+ Add a sighting" }).waitFor();
+  }
+
+  sightingRows() {
+    return this.page.getByTestId("sighting-row");
+  }
+
+  async finishAndSubmit() {
+    await this.page.getByRole("button", { name: "Finish the walk" }).click();
+    await this.page.getByLabel(/I recorded every species I could identify/).check();
+    await this.page.getByRole("button", { name: "Submit visit" }).click();
+    await this.page.getByTestId("visit-submitted").waitFor();
+  }
+}
