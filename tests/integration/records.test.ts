@@ -1,0 +1,115 @@
+import { and, eq, ne } from "drizzle-orm";
+import { beforeEach, describe, expect, it, vi } from "vitest";
+import { db } from "@/db/client";
+import { sightings, users, verificationEvents, visits } from "@/db/schema";
+import type { Actor } from "@/lib/auth/guard";
+import { myRecords, replyToQuestion } from "@/lib/queries/records";
+import { resetToDemo } from "./support/db";
+
+const session = vi.hoisted(() => ({ userId: null as string | null }));
+vi.mock("@/auth", () => ({ auth: async () => (session.userId ? { user: { id: session.userId } } : null) }));
+
+const { GET } = await import("@/app/(field)/api/field/records/route");
+const { POST: REPLY } = await import("@/app/(field)/api/field/records/reply/route");
+
+async function actorFor(email: string): Promise<Actor> {
+  const [u] = await db().select().from(users).where(eq(users.email, email));
+  return { id: u!.id, role: u!.role, name: u!.name, email: u!.email };
+}
+
+async function reply(body: unknown) {
+  const request = new Request("http://localhost/api/field/records/reply", { method: "POST", body: JSON.stringify(body) });
+  const response = await REPLY(request, { params: Promise.resolve({}) });
+  return { status: response.status, json: (await response.json()) as Record<string, any> };
+}
+
+/** Puts a coordinator's question on one of the volunteer's pending sightings. */
+async function queryOneOf(actor: Actor, message: string) {
+  const [coordinator] = await db().select().from(users).where(eq(users.role, "coordinator"));
+  const [target] = await db()
+    .select({ id: sightings.id })
+    .from(sightings)
+    .innerJoin(visits, eq(visits.id, sightings.visitId))
+    .where(and(eq(visits.volunteerId, actor.id), eq(sightings.status, "pending")))
+    .limit(1);
+  await db().update(sightings).set({ status: "queried", reviewedAt: new Date(), reviewedById: coordinator!.id }).where(eq(sightings.id, target!.id));
+  await db().insert(verificationEvents).values([
+    { sightingId: target!.id, actorId: coordinator!.id, action: "query", fromStatus: "pending", toStatus: "queried", message: "An older question", createdAt: new Date("2026-07-01T10:00:00Z") },
+    { sightingId: target!.id, actorId: coordinator!.id, action: "query", fromStatus: "queried", toStatus: "queried", message, createdAt: new Date("2026-07-02T10:00:00Z") },
+  ]);
+  return target!.id;
+}
+
+describe("a volunteer's own records and answers to questions", () => {
+  let actor: Actor;
+
+  beforeEach(async () => {
+    await resetToDemo();
+    actor = await actorFor("volunteer01@harrowmere.example");
+    session.userId = actor.id;
+  });
+
+  it("lists only the volunteer's visits, newest first, with transect, sightings and the latest question", async () => {
+    const sightingId = await queryOneOf(actor, "Was the underside spotted?");
+    const records = await myRecords(actor);
+    const ownVisitIds = new Set((await db().select({ id: visits.id }).from(visits).where(eq(visits.volunteerId, actor.id))).map((v) => v.id));
+    expect(ownVisitIds.size).toBeGreaterThan(0);
+    expect(records).toHaveLength(Math.min(ownVisitIds.size, 100));
+    for (const v of records) expect(ownVisitIds.has(v.id)).toBe(true);
+    const dates = records.map((v) => v.visitDate);
+    expect(dates).toEqual([...dates].sort().reverse());
+    expect(records[0]!.transectCode).toMatch(/^[A-Z]{3}-\d{2}$/);
+
+    const queried = records.flatMap((v) => v.sightings).find((s) => s.id === sightingId);
+    expect(queried).toMatchObject({ status: "queried", question: "Was the underside spotted?", awaitingReply: true });
+    expect(queried!.vernacularName.length).toBeGreaterThan(0);
+    const pending = records.flatMap((v) => v.sightings).find((s) => s.status === "pending");
+    expect(pending).toMatchObject({ question: null, awaitingReply: false });
+  });
+
+  it("stores a reply on the volunteer's own queried sighting (201) and leaves its status alone", async () => {
+    const sightingId = await queryOneOf(actor, "Photo?");
+    const { status, json } = await reply({ sightingId, message: "  Yes: uploaded from the phone.  " });
+    expect(status).toBe(201);
+    expect(json).toMatchObject({ sightingId, message: "Yes: uploaded from the phone." });
+    const events = await db().select().from(verificationEvents).where(and(eq(verificationEvents.sightingId, sightingId), eq(verificationEvents.action, "reply")));
+    expect(events).toEqual([expect.objectContaining({ actorId: actor.id, fromStatus: "queried", toStatus: "queried" })]);
+    const [row] = await db().select().from(sightings).where(eq(sightings.id, sightingId));
+    expect(row!.status).toBe("queried");
+    const answered = (await myRecords(actor)).flatMap((v) => v.sightings).find((s) => s.id === sightingId);
+    expect(answered!.awaitingReply).toBe(false);
+  });
+
+  it("refuses a reply on someone else's sighting (403), on one not queried (409), and a bad body (400)", async () => {
+    const other = await actorFor("volunteer02@harrowmere.example");
+    const theirs = await queryOneOf(other, "Which wing?");
+    expect((await reply({ sightingId: theirs, message: "Not mine" })).status).toBe(403);
+    await expect(replyToQuestion(actor, { sightingId: theirs, message: "x" })).rejects.toMatchObject({ status: 403 });
+
+    const [pending] = await db()
+      .select({ id: sightings.id })
+      .from(sightings)
+      .innerJoin(visits, eq(visits.id, sightings.visitId))
+      .where(and(eq(visits.volunteerId, actor.id), eq(sightings.status, "pending")))
+      .limit(1);
+    expect((await reply({ sightingId: pending!.id, message: "Unprompted" })).status).toBe(409);
+
+    const bad = await reply({ sightingId: "nope", message: "x".repeat(1001) });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.json.error.fields).sort()).toEqual(["message", "sightingId"]);
+    expect(await db().select().from(verificationEvents).where(eq(verificationEvents.action, "reply"))).toHaveLength(0);
+  });
+
+  it("serves GET /api/field/records to the volunteer and 401 to strangers", async () => {
+    const ok = await GET(new Request("http://localhost/api/field/records"), { params: Promise.resolve({}) });
+    expect(ok.status).toBe(200);
+    const body = (await ok.json()) as { visits: { id: string }[] };
+    expect(body.visits.length).toBe((await myRecords(actor)).length);
+    session.userId = null;
+    const stranger = await GET(new Request("http://localhost/api/field/records"), { params: Promise.resolve({}) });
+    expect(stranger.status).toBe(401);
+    const [someoneElse] = await db().select().from(users).where(ne(users.role, "volunteer")).limit(1);
+    session.userId = someoneElse!.id;
+    expect((await GET(new Request("http://localhost/api/field/records"), { params: Promise.resolve({}) })).status).toBe(403);
+  });
+});
