@@ -7,7 +7,8 @@ import { execFileSync, spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { availableParallelism, tmpdir } from "node:os";
 import path from "node:path";
-import { type ChangeResult, type SpeciesTable, Xoshiro128, compareSeasons, isPresenceAbsence } from "../lib/change";
+import { type ChangeResult, type SpeciesTable, Xoshiro128, isPresenceAbsence } from "../lib/change";
+import { compareSeasons } from "../lib/change/threaded";
 import { denseReference } from "../lib/change/dense-reference";
 import { STREAM_TEST } from "../lib/change/random";
 

@@ -13,10 +13,10 @@ import {
   MAX_PERMUTATIONS,
   PERMUTATION_MODES,
   TableError,
-  compareSeasons,
   csvField,
   parseSpeciesTableCsv,
 } from "../lib/change";
+import { compareSeasons } from "../lib/change/threaded";
 
 const USAGE = `usage: npm run compare -- --before T1.csv --after T2.csv
   [--index ${INDICES.join("|")}] (default percentage-difference)
@@ -112,7 +112,8 @@ async function main(): Promise<number> {
   try {
     const before = readTable(args.before);
     const after = readTable(args.after);
-    result = await compareSeasons(before, after, args);
+    const { index, permutations, seed, mode, adjust, alpha, threads } = args;
+    result = await compareSeasons(before, after, { index, permutations, seed, mode, adjust, alpha, threads });
   } catch (error) {
     if (error instanceof CsvError || error instanceof TableError) {
       process.stderr.write(`compare: ${error.message}\n`);

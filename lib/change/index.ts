@@ -1,4 +1,5 @@
-// Public API of the season-to-season change engine (see README.md).
+// Public API of the season-to-season change engine (see README.md). Pure and free of Node
+// built-ins, so the UI may import it; worker threads live in "./threaded" (Node only).
 export * from "./types";
 export { TableError, preparePair, restrictToSpecies, tableFromRecords, validateTable, REASON_EMPTY, REASON_ONLY_AFTER, REASON_ONLY_BEFORE } from "./tables";
 export { TOLERANCE, denominator, directionOf, isPresenceAbsence, partsFromSums, rawParts, siteParts, type SiteParts } from "./indices";
@@ -29,4 +30,3 @@ export {
   runComparisonChunk,
   type PreparedComparison,
 } from "./compare";
-export { chooseThreads, compareSeasons, defaultThreads, runChunksThreaded, type ChunkListener, type ThreadOptions } from "./threaded";
