@@ -4,14 +4,14 @@ import { db } from "@/db/client";
 import { photos } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { AppError, forbidden, notFound } from "@/lib/errors";
-import { MAX_PHOTO_BYTES, type PhotoReady } from "./contract";
+import { MAX_PHOTO_BYTES, photoErrorCodes, type PhotoReady } from "./contract";
 import { inspectPhoto } from "./inspect";
 import { photoKeys } from "./keys";
 import { deleteObject, objectSize, readObject, writeObject } from "./objects";
 import { processPhoto } from "./process";
 import { PhotoRefusal, isPhotoRefusal, megabytes } from "./refusal";
 
-export const PHOTO_NOT_UPLOADED = "photo_not_uploaded";
+export const PHOTO_NOT_UPLOADED = photoErrorCodes.notUploaded;
 
 type Outcome =
   | { kind: "ready"; width: number; height: number; originalKey?: string }
@@ -52,7 +52,8 @@ export async function completeUpload(actor: Actor, photoId: string): Promise<Pho
 
     const size = await objectSize(row.uploadKey);
     if (size === null) {
-      throw new AppError(409, PHOTO_NOT_UPLOADED, "The photo has not been uploaded yet: send the file to the upload URL first.");
+      // Not a 409: the phone's outbox reads 409 as "the server has it" and would drop its copy.
+      throw new AppError(400, PHOTO_NOT_UPLOADED, "The photo has not been uploaded yet: send the file to the upload URL first.");
     }
     try {
       const bytes = await readUpload(row.uploadKey, size);

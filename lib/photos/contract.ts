@@ -5,6 +5,10 @@ import { z } from "zod";
 // 2. PUT  uploadUrl                     (the file itself, straight to the object store)
 // 3. POST /api/field/photos/{id}/complete -> { photo: { id, status: "ready", width, height } } or 400 { error } when refused
 // 4. GET  /api/photos/{id}?size=thumbnail|display -> 302 to a short-lived signed URL, for people allowed to see it
+// Besides the generic errors (400 invalid, 401, 403, 404), the flow answers with photoErrorCodes:
+// 400 photo_refused (final for that id: the file is not kept, the message says why),
+// 400 photo_not_uploaded (step 3 before the PUT landed: upload again), and
+// 409 photo_already_uploaded (step 1 for a photo that is already ready; step 3 then answers 200 again).
 
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
 export const MAX_PHOTO_PIXELS = 40_000_000;
@@ -25,3 +29,9 @@ export type PhotoUploadRequest = z.infer<typeof photoUploadRequest>;
 
 export type PhotoUploadTicket = { id: string; uploadUrl: string; headers: Record<string, string>; expiresAt: string };
 export type PhotoReady = { photo: { id: string; status: "ready"; width: number; height: number } };
+
+export const photoErrorCodes = {
+  refused: "photo_refused",
+  notUploaded: "photo_not_uploaded",
+  alreadyUploaded: "photo_already_uploaded",
+} as const;

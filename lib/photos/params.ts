@@ -1,3 +1,4 @@
+import "server-only";
 import { z } from "zod";
 import { invalid } from "@/lib/errors";
 import { fieldErrorsOf } from "@/lib/validation";

@@ -1,6 +1,8 @@
+import "server-only";
 import { AppError } from "@/lib/errors";
+import { photoErrorCodes } from "./contract";
 
-export const PHOTO_REFUSED = "photo_refused";
+export const PHOTO_REFUSED = photoErrorCodes.refused;
 
 /** A photo we will not keep, with a message the volunteer can act on. Answered as 400. */
 export class PhotoRefusal extends AppError {

@@ -3,13 +3,13 @@ import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { photos, sightings, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
-import { AppError, conflict, forbidden, invalid, notFound } from "@/lib/errors";
-import type { PhotoUploadRequest, PhotoUploadTicket } from "./contract";
+import { AppError, forbidden, invalid, notFound } from "@/lib/errors";
+import { photoErrorCodes, type PhotoUploadRequest, type PhotoUploadTicket } from "./contract";
 import { photoKeys } from "./keys";
 import { UPLOAD_URL_SECONDS, presignUpload } from "./objects";
 import { PhotoRefusal } from "./refusal";
 
-export const PHOTO_ALREADY_UPLOADED = "photo_already_uploaded";
+export const PHOTO_ALREADY_UPLOADED = photoErrorCodes.alreadyUploaded;
 
 async function assertVisitAndSighting(actor: Actor, request: PhotoUploadRequest): Promise<void> {
   const [visit] = await db().select({ volunteerId: visits.volunteerId }).from(visits).where(eq(visits.id, request.visitId));
@@ -27,7 +27,7 @@ async function assertVisitAndSighting(actor: Actor, request: PhotoUploadRequest)
  * Step 1 of the upload flow: records the photo (status awaiting_upload) and hands back a
  * presigned PUT. Idempotent on the phone's photo id: asking again while the upload is pending
  * gives a fresh ticket for the same row; once processed, the outcome is final (409 when ready,
- * the stored refusal when refused), since the original has been deleted by then.
+ * the stored 400 refusal when refused), since the original has been deleted by then.
  */
 export async function requestUploadTicket(actor: Actor, request: PhotoUploadRequest): Promise<PhotoUploadTicket> {
   await assertVisitAndSighting(actor, request);
@@ -41,15 +41,16 @@ export async function requestUploadTicket(actor: Actor, request: PhotoUploadRequ
     .returning({ id: photos.id });
 
   if (inserted.length === 0) {
+    // Only "already uploaded" is a 409: the phone's outbox takes a 409 to mean the server has the photo.
     const [existing] = await db().select().from(photos).where(eq(photos.id, request.id));
-    if (!existing || existing.uploadedById !== actor.id) throw conflict("That photo id is already in use.");
-    if (existing.visitId !== request.visitId || existing.sightingId !== sightingId) {
-      throw conflict("This photo id was already used for another visit or sighting.");
+    if (!existing || existing.uploadedById !== actor.id || existing.visitId !== request.visitId) {
+      throw invalid({ id: ["This photo id is already used for another visit."] }, "This photo id is already used for another visit.");
     }
     if (existing.status === "ready") throw new AppError(409, PHOTO_ALREADY_UPLOADED, "This photo has already been uploaded.");
     if (existing.status === "refused") throw new PhotoRefusal(existing.refusalReason ?? "This photo was refused.");
-    // Still awaiting its upload: the phone may now send a different size (say, after re-encoding).
-    await db().update(photos).set({ bytes: request.bytes }).where(eq(photos.id, request.id));
+    // Still awaiting its upload: the phone's latest word wins (it may have re-encoded the file
+    // or moved the photo to another sighting of the same visit).
+    await db().update(photos).set({ bytes: request.bytes, sightingId }).where(eq(photos.id, request.id));
   }
 
   const { url, headers } = await presignUpload(keys.original, request.bytes);

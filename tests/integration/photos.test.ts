@@ -1,6 +1,6 @@
 import { randomUUID } from "node:crypto";
 import { HeadObjectCommand } from "@aws-sdk/client-s3";
-import { eq, ne } from "drizzle-orm";
+import { and, eq, ne } from "drizzle-orm";
 import exifr from "exifr";
 import { fileTypeFromBuffer } from "file-type";
 import sharp from "sharp";
@@ -123,19 +123,30 @@ describe("field photos against the real database and S3 fake", () => {
   it("is idempotent on the photo id: fresh tickets while pending, a fixed answer once processed", async () => {
     const bytes = await phoneJpeg();
     const { id } = await upload(bytes);
-    const again = await requestUploadTicket(volunteer, { id, visitId, sightingId, contentType: "image/jpeg", bytes: bytes.length });
+    // Asked again while pending, for no sighting this time: the same row, the phone's latest word.
+    const again = await requestUploadTicket(volunteer, { id, visitId, sightingId: null, contentType: "image/jpeg", bytes: bytes.length });
     expect(again.id).toBe(id);
-    expect((await db().select().from(photos).where(eq(photos.id, id))).length).toBe(1);
+    expect((await db().select().from(photos).where(eq(photos.id, id))).map((p) => [p.status, p.sightingId])).toEqual([["awaiting_upload", null]]);
 
-    const first = await completeUpload(volunteer, id);
+    // Two completions at once (a phone retrying on a flaky signal): the row lock makes them agree.
+    const [first, second] = await Promise.all([completeUpload(volunteer, id), completeUpload(volunteer, id)]);
+    expect(second).toEqual(first);
     await expect(completeUpload(volunteer, id)).resolves.toEqual(first);
     await expect(requestUploadTicket(volunteer, { id, visitId, sightingId, contentType: "image/jpeg", bytes: 10 })).rejects.toMatchObject({
       status: 409,
       code: PHOTO_ALREADY_UPLOADED,
     });
-    await expect(requestUploadTicket(volunteer, { id, visitId, sightingId: null, contentType: "image/jpeg", bytes: 10 })).rejects.toMatchObject({
-      status: 409,
-      code: "conflict",
+    const [mySecondVisit] = await db()
+      .select({ id: visits.id })
+      .from(visits)
+      .where(and(eq(visits.volunteerId, volunteer.id), ne(visits.id, visitId)))
+      .limit(1);
+    await expect(requestUploadTicket(volunteer, { id, visitId: mySecondVisit!.id, contentType: "image/jpeg", bytes: 10 })).rejects.toMatchObject({
+      status: 400,
+      fieldErrors: { id: ["This photo id is already used for another visit."] },
+    });
+    await expect(requestUploadTicket(otherVolunteer, { id, visitId: otherVisitId, contentType: "image/jpeg", bytes: 10 })).rejects.toMatchObject({
+      status: 400,
     });
   });
 
@@ -189,10 +200,10 @@ describe("field photos against the real database and S3 fake", () => {
     await expect(completeUpload(volunteer, randomUUID())).rejects.toMatchObject({ status: 404 });
   });
 
-  it("answers 409 when completion comes before the upload, and leaves the photo waiting", async () => {
+  it("answers 400 photo_not_uploaded when completion comes before the upload, and leaves the photo waiting", async () => {
     const id = randomUUID();
     await requestUploadTicket(volunteer, { id, visitId, sightingId: null, contentType: "image/jpeg", bytes: 100 });
-    await expect(completeUpload(volunteer, id)).rejects.toMatchObject({ status: 409, code: PHOTO_NOT_UPLOADED });
+    await expect(completeUpload(volunteer, id)).rejects.toMatchObject({ status: 400, code: PHOTO_NOT_UPLOADED });
     expect((await rowOf(id)).status).toBe("awaiting_upload");
   });
 
