@@ -2,6 +2,7 @@
 // accept) permutation counts, adjust p-values, summarise, and test gains against losses.
 // The steps are exposed separately so a job queue can run the permutation chunks elsewhere.
 import { adjustPValues, isExceptional } from "./adjust";
+import { fingerprintComparison } from "./fingerprint";
 import { partsFromSums } from "./indices";
 import { pairedTTest } from "./paired-test";
 import { type ObservedSums, addChunkCounts, observedSums, permutationPValues, planChunks, runPermutationChunk } from "./permutation";
@@ -58,12 +59,14 @@ export interface PreparedComparison {
   readonly prepared: PreparedPair;
   readonly options: ResolvedOptions;
   readonly observed: ObservedSums;
+  /** Identifies data, site order and settings; chunk counts carry it back. */
+  readonly fingerprint: string;
 }
 
 export function prepareComparison(before: SpeciesTable, after: SpeciesTable, options: CompareOptions = {}): PreparedComparison {
   const resolved = resolveOptions(options);
   const prepared = preparePair(before, after, resolved.index);
-  return { prepared, options: resolved, observed: observedSums(prepared) };
+  return { prepared, options: resolved, observed: observedSums(prepared), fingerprint: fingerprintComparison(prepared, resolved) };
 }
 
 /** The permutation ranges of this comparison (fixed by R, never by thread count). */
@@ -73,13 +76,19 @@ export function comparisonChunks(comparison: PreparedComparison, chunkSize?: num
 
 /** Runs one range of permutations of a prepared comparison. */
 export function runComparisonChunk(comparison: PreparedComparison, range: { start: number; count: number }): ChunkCounts {
-  const { prepared, options, observed } = comparison;
-  return runPermutationChunk({ prepared, mode: options.mode, seed: options.seed, observed: observed.dissimilarity, ...range });
+  const { prepared, options, observed, fingerprint } = comparison;
+  const counts = runPermutationChunk({ prepared, mode: options.mode, seed: options.seed, observed: observed.dissimilarity, ...range });
+  return { ...counts, fingerprint };
 }
 
-/** Combines chunk counts (which must cover 0..R-1 exactly once) into the final result. */
+/**
+ * Combines chunk counts (which must cover 0..R-1 exactly once) into the final result.
+ * Chunks carrying another comparison's fingerprint are refused.
+ */
 export function finishComparison(comparison: PreparedComparison, chunks: readonly ChunkCounts[]): ChangeResult {
   const { prepared, options, observed } = comparison;
+  const foreign = chunks.find((c) => c.fingerprint !== undefined && c.fingerprint !== comparison.fingerprint);
+  if (foreign) throw new Error(`chunk at ${foreign.start} belongs to another comparison (fingerprint ${foreign.fingerprint}, expected ${comparison.fingerprint})`);
   const counts = addChunkCounts(prepared.sites.length, options.permutations, chunks);
   const p = permutationPValues(counts, options.permutations);
   const pAdjusted = adjustPValues(p, options.adjust);

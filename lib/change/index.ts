@@ -15,6 +15,7 @@ export {
   type ObservedSums,
 } from "./permutation";
 export { adjustPValues, isExceptional } from "./adjust";
+export { fingerprintComparison } from "./fingerprint";
 export { pairedTTest, type PairedTestOptions } from "./paired-test";
 export { summarise } from "./summary";
 export { lossGainPlot, lossGainPlots, type LossGainPlot, type LossGainPlots, type PlotPoint, type Segment } from "./plot";

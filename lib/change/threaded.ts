@@ -83,8 +83,9 @@ export async function runChunksThreaded(
         worker.on("message", (reply: WorkerReply) => {
           if (reply.type === "error") return fail(new Error(`permutation worker failed: ${reply.message}`));
           if (reply.type === "counts") {
-            results.push(reply.counts);
-            onChunk?.(reply.counts, reply.threadId);
+            const counts = { ...reply.counts, fingerprint: comparison.fingerprint };
+            results.push(counts);
+            onChunk?.(counts, reply.threadId);
           }
           feed();
         });

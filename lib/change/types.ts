@@ -130,4 +130,6 @@ export interface ChunkCounts {
   readonly start: number;
   readonly count: number;
   readonly exceed: number[];
+  /** Which prepared comparison the counts belong to (set by runComparisonChunk). */
+  readonly fingerprint?: string;
 }

@@ -72,6 +72,18 @@ describe("compareSeasonsSync", () => {
     expect(finishComparison(comparison, viaJson)).toEqual(compareSeasonsSync(before, after, options));
   });
 
+  it("refuses chunk counts from another comparison", () => {
+    const options = { permutations: 40, seed: 9 };
+    const comparison = prepareComparison(before, after, options);
+    const other = prepareComparison(before, after, { ...options, seed: 10 });
+    const reordered = prepareComparison({ ...before, sites: [...before.sites].reverse(), values: [...before.values].reverse() }, after, options);
+    expect(other.fingerprint).not.toBe(comparison.fingerprint);
+    expect(reordered.fingerprint).not.toBe(comparison.fingerprint);
+    expect(prepareComparison(before, after, options).fingerprint).toBe(comparison.fingerprint);
+    const mixed = [runComparisonChunk(comparison, { start: 0, count: 20 }), runComparisonChunk(other, { start: 20, count: 20 })];
+    expect(() => finishComparison(comparison, mixed)).toThrow(/another comparison/);
+  });
+
   it("applies defaults and rejects bad options", () => {
     expect(resolveOptions()).toEqual({ index: "percentage-difference", permutations: 9999, seed: 1, mode: "paired", adjust: "holm", alpha: 0.05 });
     expect(() => resolveOptions({ permutations: -1 })).toThrow(RangeError);

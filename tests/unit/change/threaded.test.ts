@@ -7,10 +7,11 @@ describe("worker threads", () => {
   const { before, after } = randomPair(41, 40, 15, 0.25);
 
   it("thread count does not change the result", { timeout: 30_000 }, async () => {
-    for (const mode of ["paired", "independent"] as const) {
+    // 1100 permutations = 5 chunks of 250, spread unevenly over 2 or 3 threads.
+    for (const [mode, threadCounts] of [["paired", [1, 2, 3]], ["independent", [2]]] as const) {
       const options = { permutations: 1100, seed: 12, mode };
       const reference = compareSeasonsSync(before, after, options);
-      const results = await Promise.all([1, 2, 3].map((threads) => compareSeasons(before, after, { ...options, threads })));
+      const results = await Promise.all(threadCounts.map((threads) => compareSeasons(before, after, { ...options, threads })));
       for (const r of results) expect(r).toEqual(reference);
     }
   });
