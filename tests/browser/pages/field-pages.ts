@@ -36,9 +36,13 @@ export class FieldHomePage {
 export class VisitPage {
   constructor(private readonly page: Page) {}
 
+  /** The first visit on a phone shows the safety notice first; later ones go straight to the form. */
   async acknowledgeSafetyIfAsked() {
     const button = this.page.getByRole("button", { name: "I have read this and will take care" });
-    if (await button.isVisible().catch(() => false)) await button.click();
+    const form = this.page.getByLabel("Temperature (°C)");
+    await button.or(form).first().waitFor({ timeout: 30_000 });
+    if (await button.isVisible()) await button.click();
+    await form.waitFor();
   }
 
   async start(conditions: { temperature: string; wind: string }) {
@@ -50,7 +54,7 @@ export class VisitPage {
 
   async addSighting(s: { search: string; count: number; section?: number; photo?: { name: string; mimeType: string; buffer: Buffer } }) {
     await this.page.getByRole("button", { name: "+ Add a sighting" }).click();
-    await this.page.getByLabel("Species").fill(s.search);
+    await this.page.getByRole("searchbox", { name: "Species" }).fill(s.search);
     await this.page.getByRole("list", { name: "Matching species" }).getByRole("button").first().click();
     for (let i = 1; i < s.count; i++) await this.page.getByRole("button", { name: "More (Count)" }).click();
     if (s.section) await this.page.getByLabel("Section").selectOption(String(s.section));
