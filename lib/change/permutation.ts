@@ -5,9 +5,11 @@
 // any arrangement is uniform, so the position array is never reset between species.
 import { TOLERANCE, doublesShared } from "./indices";
 import { STREAM_SITE_PERMUTATION, assertSeed, streamState } from "./random";
-import type { ChunkCounts, PermutationMode, PreparedPair } from "./types";
+import { type ChunkCounts, PERMUTATION_MODES, type PermutationMode, type PreparedPair } from "./types";
 
 const TWO_TO_MINUS_32 = 2 ** -32;
+/** The inlined bounded draw is exact while sites x 2^32 stays below 2^53. */
+export const MAX_SITES = 2 ** 21;
 
 /** Permutations per chunk when none is given; results do not depend on it. */
 export const DEFAULT_CHUNK_SIZE = 250;
@@ -63,10 +65,13 @@ export interface ChunkRequest {
 export function runPermutationChunk(request: ChunkRequest): ChunkCounts {
   const { prepared, mode, seed, start, count } = request;
   assertSeed(seed);
+  if (!PERMUTATION_MODES.includes(mode)) throw new RangeError(`unknown permutation mode "${mode}"`);
   if (!Number.isSafeInteger(start) || start < 0 || !Number.isSafeInteger(count) || count < 0) {
     throw new RangeError(`bad permutation range start=${start} count=${count}`);
   }
+  if (prepared.sites.length > MAX_SITES) throw new RangeError(`at most ${MAX_SITES} sites can be compared, got ${prepared.sites.length}`);
   const observed = request.observed ?? observedSums(prepared).dissimilarity;
+  if (observed.length !== prepared.sites.length) throw new RangeError("observed D does not match the sites");
   const exceed = countExceedances(prepared, observed, mode, seed, start, count);
   return { start, count, exceed: Array.from(exceed) };
 }
@@ -88,7 +93,7 @@ function countExceedances(
   const pos = new Int32Array(n);
   const dest = new Int32Array(n);
   const destT1 = new Int32Array(n);
-  // A, B, C of site s at 3s, 3s+1, 3s+2: one cache line per placement.
+  // A, B, C of site s side by side at 3s, 3s+1, 3s+2, so one placement touches one spot.
   const abc = new Float64Array(3 * n);
   const threshold = Float64Array.from(observed, (d) => d - TOLERANCE);
 

@@ -139,6 +139,14 @@ describe("seeds and chunks", () => {
     expect(Array.from(addChunkCounts(1, 6, [c(3, 3), c(0, 3)]))).toEqual([2]);
   });
 
+  it("rejects unknown modes, bad ranges and observed D of the wrong length", () => {
+    const prepared = preparePair(table([[1, 0], [0, 1]]), table([[1, 1], [0, 1]]), "jaccard");
+    expect(() => runPermutationChunk({ prepared, mode: "shuffled" as never, seed: 1, start: 0, count: 1 })).toThrow(/unknown permutation mode/);
+    expect(() => runPermutationChunk({ prepared, mode: "paired", seed: 1, start: -1, count: 1 })).toThrow(RangeError);
+    expect(() => runPermutationChunk({ prepared, mode: "paired", seed: 1, start: 0, count: 1.5 })).toThrow(RangeError);
+    expect(() => runPermutationChunk({ prepared, mode: "paired", seed: 1, start: 0, count: 1, observed: new Float64Array(1) })).toThrow(/observed D/);
+  });
+
   it("observed D from the cell lists matches the per-site formula", () => {
     const { before, after } = randomPair(15, 20, 8, 0.3);
     const prepared = preparePair(before, after, "percentage-difference");
