@@ -1,10 +1,10 @@
-import { HeadObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { GetObjectCommand, HeadObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import exifr from "exifr";
 import postgres from "postgres";
-import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { demoPeople } from "@/db/seed/network";
+import { phoneJpeg } from "../support/images";
 import { FieldHomePage, VisitPage } from "./pages/field-pages";
 import { SignInPage } from "./pages/sign-in-page";
 import { password } from "./support/accounts";
@@ -46,11 +46,9 @@ describe("recording a visit with no signal", () => {
     await visit.acknowledgeSafetyIfAsked();
     await visit.start({ temperature: "18", wind: "2" });
 
-    // A photo with GPS in its EXIF, to prove the server strips it.
-    const photo = await sharp({ create: { width: 640, height: 480, channels: 3, background: "#7a9a3c" } })
-      .jpeg()
-      .withExif({ IFD0: { Make: "TestCam" }, GPS: { GPSLatitudeRef: "N", GPSLatitude: "51/1 4/1 0/1", GPSLongitudeRef: "W", GPSLongitude: "1/1 18/1 0/1" } } as never)
-      .toBuffer();
+    // A photo with GPS in its EXIF, to prove the server strips it (exifr, a well-known EXIF reader, sees it first).
+    const photo = await phoneJpeg();
+    expect((await exifr.gps(photo))?.latitude).toBeCloseTo(51.5, 3);
     const searches = ["Meadow Brown", "Small White", "Peacock", "Common Blue", "Speckled Wood"];
     for (const [i, search] of searches.entries()) {
       await visit.addSighting({ search, count: i + 1, section: 1, photo: i === 0 ? { name: "meadow-brown.jpg", mimeType: "image/jpeg", buffer: photo } : undefined });
@@ -92,7 +90,6 @@ describe("recording a visit with no signal", () => {
     const bucket = process.env.S3_BUCKET ?? "turnstone-test-photos";
     const head = await s3.send(new HeadObjectCommand({ Bucket: bucket, Key: photos[0]!.display_key }));
     expect(head.ContentLength).toBeGreaterThan(0);
-    const { GetObjectCommand } = await import("@aws-sdk/client-s3");
     const stored = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: photos[0]!.display_key }));
     const bytes = Buffer.from(await stored.Body!.transformToByteArray());
     // exifr, a well-known EXIF reader, finds no GPS in what the server stored.
