@@ -54,10 +54,13 @@ async function applyInTransaction(tx: Transaction, actor: Actor, batch: ParsedBa
   const standingOf = (visitId: string): VisitStanding => visitPlan.standings.get(visitId) ?? serverStanding(actor, visitId, state);
   const sightingPlan = planSightings(actor.id, parsedSightings.valid, state, standingOf);
 
-  // Visits first: new sightings reference them.
-  await upsertVisits(tx, visitPlan.writes);
-  await upsertSightings(tx, actor.id, sightingPlan.writes);
-  await deletePendingSightings(tx, sightingPlan.deletes);
+  // Sent together so they share one round trip: postgres-js runs a connection's queries in
+  // the order issued, so the visits still land before the sightings that reference them.
+  await Promise.all([
+    upsertVisits(tx, visitPlan.writes),
+    upsertSightings(tx, actor.id, sightingPlan.writes),
+    deletePendingSightings(tx, sightingPlan.deletes),
+  ]);
 
   return [
     ...[...visitPlan.results, ...parsedVisits.rejected].sort(byIndex),

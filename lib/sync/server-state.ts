@@ -1,8 +1,9 @@
 import "server-only";
-import { and, eq, getTableColumns, inArray, sql } from "drizzle-orm";
+import { and, eq, getTableColumns, sql } from "drizzle-orm";
 import type { Transaction } from "@/db/client";
 import { seasons, sightings, species, transectAssignments, transects, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
+import { uuidArray } from "./sql-arrays";
 
 export type ServerVisit = typeof visits.$inferSelect & { sectionCount: number; hasReviewed: boolean };
 export type ServerSighting = typeof sightings.$inferSelect & { ownerId: string };
@@ -36,14 +37,14 @@ export async function loadServerState(tx: Transaction, actor: Actor, keys: State
           .select({ id: transects.id, sectionCount: transects.sectionCount })
           .from(transectAssignments)
           .innerJoin(transects, eq(transects.id, transectAssignments.transectId))
-          .where(and(eq(transectAssignments.userId, actor.id), inArray(transectAssignments.transectId, keys.transectIds)))
+          .where(and(eq(transectAssignments.userId, actor.id), sql`${transectAssignments.transectId} = any(${uuidArray(keys.transectIds)})`))
       : none,
     keys.visitIds.length
       ? tx
           .select({ ...getTableColumns(visits), sectionCount: transects.sectionCount, hasReviewed: reviewedSightingOfVisit })
           .from(visits)
           .innerJoin(transects, eq(transects.id, visits.transectId))
-          .where(inArray(visits.id, keys.visitIds))
+          .where(sql`${visits.id} = any(${uuidArray(keys.visitIds)})`)
           .orderBy(visits.id)
           .for("update", { of: visits })
       : none,
@@ -52,11 +53,11 @@ export async function loadServerState(tx: Transaction, actor: Actor, keys: State
           .select({ ...getTableColumns(sightings), ownerId: visits.volunteerId })
           .from(sightings)
           .innerJoin(visits, eq(visits.id, sightings.visitId))
-          .where(inArray(sightings.id, keys.sightingIds))
+          .where(sql`${sightings.id} = any(${uuidArray(keys.sightingIds)})`)
           .orderBy(sightings.id)
           .for("update", { of: sightings })
       : none,
-    keys.speciesIds.length ? tx.select({ id: species.id }).from(species).where(inArray(species.id, keys.speciesIds)) : none,
+    keys.speciesIds.length ? tx.select({ id: species.id }).from(species).where(sql`${species.id} = any(${uuidArray(keys.speciesIds)})`) : none,
     keys.visitIds.length ? tx.select({ id: seasons.id, startsOn: seasons.startsOn, endsOn: seasons.endsOn }).from(seasons) : none,
   ]);
   return {

@@ -1,8 +1,9 @@
 import "server-only";
-import { and, inArray, isNull, eq, sql } from "drizzle-orm";
+import { sql } from "drizzle-orm";
 import type { Transaction } from "@/db/client";
 import { sightings, visits } from "@/db/schema";
 import type { SightingRow } from "./sightings";
+import { uuidArray } from "./sql-arrays";
 import type { VisitRow } from "./visits";
 
 /** Raised when the database disagrees with what the batch read moments before: the batch is retried. */
@@ -13,74 +14,70 @@ export class BatchRaced extends Error {
   }
 }
 
-const excluded = (column: string) => sql.raw(`excluded.${column}`);
+// Rows travel as one JSON parameter unpacked by json_to_recordset: the statement text is the
+// same for any batch size (prepared once per connection), and building it costs next to nothing,
+// where a generated multi-row VALUES list costs milliseconds per batch to assemble.
+// The upserts repeat the conflict rules in their WHERE clauses, so a row another transaction
+// created or reviewed after our read is left alone; the short count then triggers a retry.
 
-// The upserts repeat the conflict rules in their WHERE clauses, so a row that another
-// transaction created or reviewed after our read is left alone; a short count then triggers a retry.
 export async function upsertVisits(tx: Transaction, rows: VisitRow[]): Promise<void> {
   if (!rows.length) return;
-  const written = await tx
-    .insert(visits)
-    .values(rows)
-    .onConflictDoUpdate({
-      target: visits.id,
-      set: {
-        transectId: excluded("transect_id"),
-        seasonId: excluded("season_id"),
-        visitDate: excluded("visit_date"),
-        startTime: excluded("start_time"),
-        endTime: excluded("end_time"),
-        temperatureC: excluded("temperature_c"),
-        windBeaufort: excluded("wind_beaufort"),
-        cloudCoverPercent: excluded("cloud_cover_percent"),
-        sky: excluded("sky"),
-        coRecorders: excluded("co_recorders"),
-        completeList: excluded("complete_list"),
-        notes: excluded("notes"),
-        submittedAt: excluded("submitted_at"),
-        clientUpdatedAt: excluded("client_updated_at"),
-        updatedAt: sql`now()`,
-      },
-      setWhere: sql`${visits.volunteerId} = excluded.volunteer_id
-        and (${visits.clientUpdatedAt} is null or ${visits.clientUpdatedAt} <= excluded.client_updated_at)
-        and not exists (select 1 from ${sightings} s where s.visit_id = ${visits.id} and (s.status <> 'pending' or s.reviewed_at is not null))`,
-    })
-    .returning({ id: visits.id });
+  const json = JSON.stringify(
+    rows.map((v) => ({
+      id: v.id, transect_id: v.transectId, volunteer_id: v.volunteerId, season_id: v.seasonId, visit_date: v.visitDate,
+      start_time: v.startTime, end_time: v.endTime, temperature_c: v.temperatureC, wind_beaufort: v.windBeaufort,
+      cloud_cover_percent: v.cloudCoverPercent, sky: v.sky, co_recorders: v.coRecorders, complete_list: v.completeList,
+      notes: v.notes, submitted_at: v.submittedAt, client_updated_at: v.clientUpdatedAt,
+    })),
+  );
+  const written = await tx.execute<{ id: string }>(sql`
+    insert into ${visits} as cur (id, transect_id, volunteer_id, season_id, visit_date, start_time, end_time, temperature_c,
+      wind_beaufort, cloud_cover_percent, sky, co_recorders, complete_list, notes, submitted_at, client_updated_at)
+    select id, transect_id, volunteer_id, season_id, visit_date, start_time, end_time, temperature_c,
+      wind_beaufort, cloud_cover_percent, sky::sky, co_recorders, complete_list, notes, submitted_at, client_updated_at
+    from json_to_recordset(${json}::json) as r(id uuid, transect_id uuid, volunteer_id uuid, season_id uuid, visit_date date,
+      start_time time, end_time time, temperature_c double precision, wind_beaufort smallint, cloud_cover_percent smallint,
+      sky text, co_recorders text, complete_list boolean, notes text, submitted_at timestamptz, client_updated_at timestamptz)
+    on conflict (id) do update set
+      transect_id = excluded.transect_id, season_id = excluded.season_id, visit_date = excluded.visit_date,
+      start_time = excluded.start_time, end_time = excluded.end_time, temperature_c = excluded.temperature_c,
+      wind_beaufort = excluded.wind_beaufort, cloud_cover_percent = excluded.cloud_cover_percent, sky = excluded.sky,
+      co_recorders = excluded.co_recorders, complete_list = excluded.complete_list, notes = excluded.notes,
+      submitted_at = excluded.submitted_at, client_updated_at = excluded.client_updated_at, updated_at = now()
+    where cur.volunteer_id = excluded.volunteer_id
+      and (cur.client_updated_at is null or cur.client_updated_at <= excluded.client_updated_at)
+      and not exists (select 1 from ${sightings} s where s.visit_id = cur.id and (s.status <> 'pending' or s.reviewed_at is not null))
+    returning cur.id`);
   if (written.length !== rows.length) throw new BatchRaced("visits");
 }
 
 export async function upsertSightings(tx: Transaction, volunteerId: string, rows: SightingRow[]): Promise<void> {
   if (!rows.length) return;
-  const written = await tx
-    .insert(sightings)
-    .values(rows)
-    .onConflictDoUpdate({
-      target: sightings.id,
-      set: {
-        visitId: excluded("visit_id"),
-        speciesId: excluded("species_id"),
-        count: excluded("count"),
-        section: excluded("section"),
-        latitude: excluded("latitude"),
-        longitude: excluded("longitude"),
-        accuracyMetres: excluded("accuracy_metres"),
-        note: excluded("note"),
-        clientUpdatedAt: excluded("client_updated_at"),
-        updatedAt: sql`now()`,
-      },
-      setWhere: sql`${sightings.status} = 'pending' and ${sightings.reviewedAt} is null
-        and (${sightings.clientUpdatedAt} is null or ${sightings.clientUpdatedAt} <= excluded.client_updated_at)
-        and exists (select 1 from ${visits} v where v.id = ${sightings.visitId} and v.volunteer_id = ${volunteerId})`,
-    })
-    .returning({ id: sightings.id });
+  const json = JSON.stringify(
+    rows.map((s) => ({
+      id: s.id, visit_id: s.visitId, species_id: s.speciesId, count: s.count, section: s.section, latitude: s.latitude,
+      longitude: s.longitude, accuracy_metres: s.accuracyMetres, note: s.note, client_updated_at: s.clientUpdatedAt,
+    })),
+  );
+  const written = await tx.execute<{ id: string }>(sql`
+    insert into ${sightings} as cur (id, visit_id, species_id, count, section, latitude, longitude, accuracy_metres, note, client_updated_at)
+    select id, visit_id, species_id, count, section, latitude, longitude, accuracy_metres, note, client_updated_at
+    from json_to_recordset(${json}::json) as r(id uuid, visit_id uuid, species_id uuid, count integer, section smallint,
+      latitude double precision, longitude double precision, accuracy_metres double precision, note text, client_updated_at timestamptz)
+    on conflict (id) do update set
+      visit_id = excluded.visit_id, species_id = excluded.species_id, count = excluded.count, section = excluded.section,
+      latitude = excluded.latitude, longitude = excluded.longitude, accuracy_metres = excluded.accuracy_metres,
+      note = excluded.note, client_updated_at = excluded.client_updated_at, updated_at = now()
+    where cur.status = 'pending' and cur.reviewed_at is null
+      and (cur.client_updated_at is null or cur.client_updated_at <= excluded.client_updated_at)
+      and exists (select 1 from ${visits} v where v.id = cur.visit_id and v.volunteer_id = ${volunteerId})
+    returning cur.id`);
   if (written.length !== rows.length) throw new BatchRaced("sightings");
 }
 
 export async function deletePendingSightings(tx: Transaction, ids: string[]): Promise<void> {
   if (!ids.length) return;
-  const gone = await tx
-    .delete(sightings)
-    .where(and(inArray(sightings.id, ids), eq(sightings.status, "pending"), isNull(sightings.reviewedAt)))
-    .returning({ id: sightings.id });
+  const gone = await tx.execute<{ id: string }>(sql`
+    delete from ${sightings} where id = any(${uuidArray(ids)}) and status = 'pending' and reviewed_at is null returning id`);
   if (gone.length !== ids.length) throw new BatchRaced("deleted sightings");
 }

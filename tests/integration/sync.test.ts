@@ -5,6 +5,7 @@ import { db } from "@/db/client";
 import { seasons, sightings, species, transectAssignments, transects, users, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { applySyncBatch } from "@/lib/sync/apply-batch";
+import { BatchRaced, deletePendingSightings, upsertSightings, upsertVisits } from "@/lib/sync/write";
 import { resetToDemo } from "./support/db";
 
 async function actorFor(email: string): Promise<Actor> {
@@ -290,5 +291,30 @@ describe("applying a sync batch from a volunteer's phone", () => {
     const { status, response } = await applySyncBatch(actor, { sightings: [s] });
     expect(status).toBe(200);
     expect(response.results[0]!.status).toBe("created");
+  });
+
+  it("the write guards leave alone rows reviewed or taken over after the batch read them", async () => {
+    const visit = visitOf(transect.id);
+    const s = sightingOf(visit.id, speciesIds[0]!);
+    await applySyncBatch(actor, { visits: [visit], sightings: [s] });
+    await db().update(sightings).set({ status: "accepted", reviewedAt: new Date() }).where(eq(sightings.id, s.id));
+    const later = new Date("2027-01-01T00:00:00Z");
+    const sightingRow = { id: s.id, visitId: visit.id, speciesId: speciesIds[0]!, count: 50, section: 1, latitude: null, longitude: null, accuracyMetres: null, note: null, clientUpdatedAt: later };
+    const visitRow = { id: visit.id, transectId: transect.id, volunteerId: actor.id, seasonId: null, visitDate: "2026-05-14", startTime: "10:30:00", completeList: false, notes: "late edit", clientUpdatedAt: later };
+
+    await expect(db().transaction((tx) => upsertSightings(tx, actor.id, [sightingRow]))).rejects.toBeInstanceOf(BatchRaced);
+    await expect(db().transaction((tx) => deletePendingSightings(tx, [s.id]))).rejects.toBeInstanceOf(BatchRaced);
+    await expect(db().transaction((tx) => upsertVisits(tx, [visitRow]))).rejects.toBeInstanceOf(BatchRaced);
+    await db().update(sightings).set({ status: "pending", reviewedAt: null }).where(eq(sightings.id, s.id));
+    const intruder = await actorFor("volunteer02@harrowmere.example");
+    await expect(db().transaction((tx) => upsertSightings(tx, intruder.id, [sightingRow]))).rejects.toBeInstanceOf(BatchRaced);
+    await expect(db().transaction((tx) => upsertVisits(tx, [{ ...visitRow, volunteerId: intruder.id }]))).rejects.toBeInstanceOf(BatchRaced);
+
+    expect((await storedSighting(s.id))!.count).toBe(3);
+    const [stored] = await db().select().from(visits).where(eq(visits.id, visit.id));
+    expect(stored).toMatchObject({ notes: "Sheltered on the lower slope.", volunteerId: actor.id });
+    // With nothing in the way the same rows do land, so the refusals above were the guards at work.
+    await db().transaction((tx) => upsertSightings(tx, actor.id, [sightingRow]));
+    expect((await storedSighting(s.id))!.count).toBe(50);
   });
 });

@@ -1,0 +1,229 @@
+// Benchmark of offline field sync (npm run bench:sync) against the RUNNING app and its database.
+// 50 simulated volunteers sign in through Auth.js and each POST 20 batches (one new visit and
+// 20 sightings per batch) to /api/field/sync at the same time. Afterwards every sent sighting
+// is looked up in PostgreSQL (lost or duplicated must be 0), a few batches are resent (must come
+// back "unchanged" and add nothing), and the same rows are inserted as plain multi-row INSERTs
+// straight into the same tables, inside a transaction that is rolled back, for comparison.
+// Every figure printed is measured in this run; the bench deletes what it created.
+//   BENCH_BASE_URL (default http://localhost:3000), DATABASE_URL (the app's database).
+import "./load-env";
+import { randomBytes, randomUUID } from "node:crypto";
+import { closeDb, sqlClient } from "../db/client";
+import { hashPassword } from "../lib/auth/password";
+import type { SyncResponse } from "../lib/sync/contract";
+
+const BASE_URL = (process.env.BENCH_BASE_URL ?? "http://localhost:3000").replace(/\/$/, "");
+const VOLUNTEERS = Number(process.env.BENCH_VOLUNTEERS ?? 50);
+const BATCHES_PER_VOLUNTEER = Number(process.env.BENCH_BATCHES ?? 20);
+const SIGHTINGS_PER_BATCH = 20;
+const RESENT_BATCHES = 5;
+const SIGN_IN_CONCURRENCY = 4; // bcrypt on the server dominates sign-in; more in parallel only queues
+const TARGET_RATIO = 0.3;
+const TARGET_P95_MS = 300;
+const EMAIL_DOMAIN = "bench-sync.turnstone.invalid";
+
+type Visit = { id: string; transectId: string; visitDate: string; startTime: string; endTime: string; temperatureC: number; windBeaufort: number; completeList: boolean; clientUpdatedAt: string };
+type Sighting = { id: string; visitId: string; speciesId: string; count: number; section: number; latitude: number; longitude: number; accuracyMetres: number; clientUpdatedAt: string };
+type Batch = { visits: Visit[]; sightings: Sighting[] };
+type Volunteer = { id: string; email: string; transectId: string; sectionCount: number; cookie?: string; batches: Batch[] };
+
+const sql = sqlClient();
+
+function percentile(sorted: number[], p: number): number {
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]!;
+}
+
+async function inPool<T>(items: T[], width: number, work: (item: T) => Promise<void>): Promise<void> {
+  let next = 0;
+  await Promise.all(Array.from({ length: width }, async () => {
+    while (next < items.length) await work(items[next++]!);
+  }));
+}
+
+function makeBatch(v: Volunteer, n: number, speciesIds: string[]): Batch {
+  const stamp = new Date().toISOString();
+  const day = String(1 + (n % 28)).padStart(2, "0");
+  const visit: Visit = {
+    id: randomUUID(), transectId: v.transectId, visitDate: `2026-06-${day}`, startTime: "10:30", endTime: "11:40",
+    temperatureC: 18.5, windBeaufort: 2, completeList: true, clientUpdatedAt: stamp,
+  };
+  const sightings = Array.from({ length: SIGHTINGS_PER_BATCH }, (_, i): Sighting => ({
+    id: randomUUID(), visitId: visit.id, speciesId: speciesIds[(n * SIGHTINGS_PER_BATCH + i) % speciesIds.length]!,
+    count: 1 + ((i * 7 + n) % 12), section: 1 + (i % v.sectionCount), latitude: 51.1 + i / 1000, longitude: -1.2 - i / 1000,
+    accuracyMetres: 6, clientUpdatedAt: stamp,
+  }));
+  return { visits: [visit], sightings };
+}
+
+async function removeBenchData(): Promise<void> {
+  const pattern = `%@${EMAIL_DOMAIN}`;
+  await sql`delete from visits where volunteer_id in (select id from users where email like ${pattern})`;
+  await sql`delete from users where email like ${pattern}`;
+  await sql`delete from sign_in_attempts where email_key like ${pattern}`;
+}
+
+async function setUp(password: string): Promise<{ volunteers: Volunteer[]; speciesIds: string[] }> {
+  const transects = await sql<{ id: string; sectionCount: number }[]>`select id, section_count as "sectionCount" from transects where active order by code`;
+  const speciesIds = (await sql<{ id: string }[]>`select id from species order by sort_order`).map((r) => r.id);
+  if (!transects.length || !speciesIds.length) throw new Error("the database has no transects or species: seed it first (npm run db:seed)");
+  const hash = await hashPassword(password); // once: bcrypt is deliberately slow
+  const run = randomBytes(3).toString("hex");
+  const volunteers: Volunteer[] = Array.from({ length: VOLUNTEERS }, (_, i) => {
+    const t = transects[i % transects.length]!;
+    return { id: randomUUID(), email: `bench-${run}-${String(i + 1).padStart(2, "0")}@${EMAIL_DOMAIN}`, transectId: t.id, sectionCount: t.sectionCount, batches: [] };
+  });
+  await sql.begin(async (tx) => {
+    await tx`insert into users ${tx(volunteers.map((v, i) => ({ id: v.id, email: v.email, name: `Bench volunteer ${i + 1}`, role: "volunteer", password_hash: hash, accepted_safety_at: new Date() })))}`;
+    await tx`insert into transect_assignments ${tx(volunteers.map((v) => ({ transect_id: v.transectId, user_id: v.id })))}`;
+  });
+  return { volunteers, speciesIds };
+}
+
+async function signIn(email: string, password: string): Promise<string> {
+  const csrf = await fetch(`${BASE_URL}/api/auth/csrf`);
+  if (!csrf.ok) throw new Error(`GET /api/auth/csrf answered ${csrf.status}`);
+  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+  // The proxy and the route may both set a CSRF cookie: the last one matches the token.
+  const jar = new Map(csrf.headers.getSetCookie().map((c) => { const pair = c.split(";")[0]!; return [pair.slice(0, pair.indexOf("=")), pair] as const; }));
+  const csrfCookies = [...jar.values()].join("; ");
+  const answer = await fetch(`${BASE_URL}/api/auth/callback/credentials`, {
+    method: "POST",
+    redirect: "manual",
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: csrfCookies },
+    body: new URLSearchParams({ csrfToken, email, password, callbackUrl: `${BASE_URL}/field` }),
+  });
+  const session = answer.headers.getSetCookie().find((c) => c.startsWith("authjs.session-token="));
+  if (!session) throw new Error(`sign-in for ${email} gave no session cookie (HTTP ${answer.status})`);
+  return session.split(";")[0]!;
+}
+
+async function postBatch(cookie: string, batch: Batch): Promise<{ status: number; body: SyncResponse }> {
+  const response = await fetch(`${BASE_URL}/api/field/sync`, {
+    method: "POST",
+    headers: { "content-type": "application/json", cookie },
+    body: JSON.stringify(batch),
+  });
+  return { status: response.status, body: (await response.json()) as SyncResponse };
+}
+
+/** The same rows as plain multi-row INSERTs (a visit, then its 20 sightings) on `connections` connections, each in one transaction that is rolled back. */
+async function rawInsertSeconds(volunteers: Volunteer[], connections: number): Promise<number> {
+  const jobs = volunteers.flatMap((v) => v.batches.map((b) => ({ v, b })));
+  const shares = Array.from({ length: connections }, (_, c) => jobs.filter((_, i) => i % connections === c));
+  const rollback = new Error("rollback");
+  const start = performance.now();
+  const finish: number[] = [];
+  await Promise.all(shares.map((share) =>
+    sql.begin(async (tx) => {
+      for (const { v, b } of share) {
+        const visitId = randomUUID();
+        const [visit] = b.visits;
+        await tx`insert into visits ${tx([{ id: visitId, transect_id: v.transectId, volunteer_id: v.id, visit_date: visit!.visitDate, start_time: visit!.startTime, end_time: visit!.endTime, temperature_c: visit!.temperatureC, wind_beaufort: visit!.windBeaufort, complete_list: true, client_updated_at: visit!.clientUpdatedAt }])}`;
+        await tx`insert into sightings ${tx(b.sightings.map((s) => ({ id: randomUUID(), visit_id: visitId, species_id: s.speciesId, count: s.count, section: s.section, latitude: s.latitude, longitude: s.longitude, accuracy_metres: s.accuracyMetres, client_updated_at: s.clientUpdatedAt })))}`;
+      }
+      finish.push(performance.now());
+      throw rollback;
+    }).catch((e) => { if (e !== rollback) throw e; }),
+  ));
+  return (Math.max(...finish) - start) / 1000;
+}
+
+async function countStored(volunteers: Volunteer[]) {
+  const sent = volunteers.flatMap((v) => v.batches.flatMap((b) => b.sightings.map((s) => s.id)));
+  const visitIds = volunteers.flatMap((v) => v.batches.map((b) => b.visits[0]!.id));
+  const [found] = await sql<{ distinct: number; rows: number }[]>`select count(distinct id)::int as distinct, count(*)::int as rows from sightings where id = any(${sent}::uuid[])`;
+  const [inVisits] = await sql<{ n: number }[]>`select count(*)::int as n from sightings where visit_id = any(${visitIds}::uuid[])`;
+  const [visitRows] = await sql<{ n: number }[]>`select count(*)::int as n from visits where volunteer_id = any(${volunteers.map((v) => v.id)}::uuid[])`;
+  return {
+    sent: sent.length,
+    lost: sent.length - found!.distinct,
+    duplicated: found!.rows - found!.distinct + Math.max(0, inVisits!.n - sent.length),
+    visitsExtraOrMissing: Math.abs(visitRows!.n - visitIds.length),
+  };
+}
+
+async function main(): Promise<boolean> {
+  console.log(`bench:sync against ${BASE_URL}: ${VOLUNTEERS} volunteers x ${BATCHES_PER_VOLUNTEER} batches x (1 visit + ${SIGHTINGS_PER_BATCH} sightings)`);
+  const health = await fetch(`${BASE_URL}/api/health`).catch(() => null);
+  if (!health) throw new Error(`the app is not answering at ${BASE_URL} (start it, or set BENCH_BASE_URL)`);
+  await removeBenchData(); // leftovers of an interrupted earlier run
+  const password = randomBytes(18).toString("base64url");
+  const { volunteers, speciesIds } = await setUp(password);
+  try {
+    const signInStart = performance.now();
+    await inPool(volunteers, SIGN_IN_CONCURRENCY, async (v) => { v.cookie = await signIn(v.email, password); });
+    console.log(`signed in ${volunteers.length} bench volunteers in ${((performance.now() - signInStart) / 1000).toFixed(1)} s`);
+
+    // One untimed warm-up batch each, so first-request work in the server is not counted.
+    const warmUps = volunteers.map((v) => { const b = makeBatch(v, BATCHES_PER_VOLUNTEER, speciesIds); v.batches.push(b); return { v, b }; });
+    await inPool(warmUps, 10, async ({ v, b }) => { const r = await postBatch(v.cookie!, b); if (r.status !== 200) throw new Error(`warm-up batch answered ${r.status}`); });
+    for (const v of volunteers) for (let n = 0; n < BATCHES_PER_VOLUNTEER; n++) v.batches.push(makeBatch(v, n, speciesIds));
+
+    const latencies: number[] = [];
+    const problems: string[] = [];
+    const start = performance.now();
+    await Promise.all(volunteers.map(async (v) => {
+      for (const batch of v.batches.slice(1)) {
+        const t0 = performance.now();
+        const { status, body } = await postBatch(v.cookie!, batch);
+        latencies.push(performance.now() - t0);
+        const notCreated = body.results?.filter((r) => r.status !== "created").length ?? batch.sightings.length + 1;
+        if (status !== 200 || notCreated) problems.push(`HTTP ${status}, ${notCreated} items not created`);
+      }
+    }));
+    const seconds = (performance.now() - start) / 1000;
+    const timedSightings = latencies.length * SIGHTINGS_PER_BATCH;
+    const syncRate = timedSightings / seconds;
+    latencies.sort((a, b) => a - b);
+    const [p50, p95, p99] = [50, 95, 99].map((p) => percentile(latencies, p));
+
+    const stored = await countStored(volunteers);
+    const timed = volunteers.flatMap((v) => v.batches.slice(1).map((b) => ({ v, b })));
+    const step = Math.max(1, Math.floor(timed.length / RESENT_BATCHES));
+    const resent = timed.filter((_, i) => i % step === 0).slice(0, RESENT_BATCHES);
+    let resendChanged = 0;
+    for (const { v, b } of resent) {
+      const { status, body } = await postBatch(v.cookie!, b);
+      if (status !== 200) resendChanged += b.sightings.length + 1;
+      else resendChanged += body.results.filter((r) => r.status !== "unchanged").length;
+    }
+    const afterResend = await countStored(volunteers);
+
+    const rawSeconds = await rawInsertSeconds(volunteers, 1);
+    const rawRate = stored.sent / rawSeconds;
+    const poolSize = Number(process.env.DATABASE_POOL_SIZE ?? 10);
+    const rawParallelRate = stored.sent / (await rawInsertSeconds(volunteers, poolSize));
+    const ratio = syncRate / rawRate;
+
+    console.log(`\nsync: ${timedSightings} sightings in ${latencies.length} batches over ${seconds.toFixed(2)} s = ${syncRate.toFixed(0)} sightings/s`);
+    console.log(`batch latency: p50 ${p50!.toFixed(1)} ms, p95 ${p95!.toFixed(1)} ms, p99 ${p99!.toFixed(1)} ms (max ${latencies.at(-1)!.toFixed(1)} ms)`);
+    console.log(`batches not fully created: ${problems.length}${problems.length ? ` (first: ${problems[0]})` : ""}`);
+    console.log(`PostgreSQL check of ${stored.sent} sent sightings (incl. warm-up): lost ${stored.lost}, duplicated ${stored.duplicated}, visit rows off by ${stored.visitsExtraOrMissing}`);
+    console.log(`resent ${resent.length} batches: ${resendChanged} items not "unchanged"; after resend lost ${afterResend.lost}, duplicated ${afterResend.duplicated}`);
+    console.log(`raw multi-row INSERTs (same ${stored.sent} sightings + visits, one connection, one rolled-back transaction): ${rawRate.toFixed(0)} sightings/s`);
+    console.log(`  for context, the same spread over ${poolSize} connections (the app's pool size): ${rawParallelRate.toFixed(0)} sightings/s (sync would be ${(syncRate / rawParallelRate).toFixed(2)} of it)`);
+    console.log(`ratio sync / raw insert: ${ratio.toFixed(2)}`);
+
+    const checks = [
+      [`ratio >= ${TARGET_RATIO}`, ratio >= TARGET_RATIO],
+      [`p95 < ${TARGET_P95_MS} ms`, p95! < TARGET_P95_MS],
+      ["no lost or duplicated records", stored.lost === 0 && stored.duplicated === 0 && stored.visitsExtraOrMissing === 0 && afterResend.lost === 0 && afterResend.duplicated === 0],
+      ["every batch created, every resend unchanged", problems.length === 0 && resendChanged === 0],
+    ] as const;
+    for (const [label, ok] of checks) console.log(`${ok ? "PASS" : "FAIL"}  ${label}`);
+    return checks.every(([, ok]) => ok);
+  } finally {
+    await removeBenchData();
+    console.log("bench volunteers, their visits, sightings and sign-in attempts removed");
+  }
+}
+
+try {
+  const passed = await main();
+  if (!passed) process.exitCode = 1;
+} catch (error) {
+  console.error("bench:sync failed:", error instanceof Error ? error.message : error);
+  process.exitCode = 1;
+} finally {
+  await closeDb();
+}
