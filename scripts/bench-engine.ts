@@ -5,7 +5,7 @@
 // Every figure printed is measured in this run.
 import { execFileSync, spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { availableParallelism, tmpdir } from "node:os";
+import { availableParallelism, loadavg, tmpdir } from "node:os";
 import path from "node:path";
 import { type ChangeResult, type SpeciesTable, Xoshiro128, isPresenceAbsence } from "../lib/change";
 import { compareSeasons } from "../lib/change/threaded";
@@ -87,6 +87,8 @@ async function main() {
   const { before, after } = generatePair();
   console.log(`data: ${SITES} sites x ${SPECIES} species; non-zero cells: T1 ${(100 * nonZeroShare([before])).toFixed(1)}%, T2 ${(100 * nonZeroShare([after])).toFixed(1)}%, either ${(100 * nonZeroShare([before, after])).toFixed(1)}%`);
   console.log(`index ${INDEX}, mode ${MODE}, ${PERMUTATIONS} permutations, seed ${SEED}`);
+  // Other work on the machine slows every figure below; the load average says how busy it was.
+  console.log(`load average before the run: ${loadavg().map((l) => l.toFixed(2)).join(", ")} on ${availableParallelism()} cores`);
 
   const fast = await timedCompare(before, after, threads);
   console.log(`fast engine, ${threads} threads (whole compare run): ${fast.seconds.toFixed(2)} s`);
@@ -112,7 +114,7 @@ async function main() {
     console.log(`ratio dense C permutation time / fast engine whole run: ${(native.seconds / fast.seconds).toFixed(2)}x (target: >= 1)`);
     console.log(`largest |p(C) - p(fast)| (different streams, Monte Carlo noise only): ${diff.toFixed(4)}`);
   }
-  console.log(`threads used: ${threads}; peak RSS: ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB`);
+  console.log(`threads used: ${threads}; peak RSS: ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB; load average after: ${loadavg().map((l) => l.toFixed(2)).join(", ")}`);
   if (!sameAcrossThreads || !sameAsDense) process.exitCode = 1;
 }
 
