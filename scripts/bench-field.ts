@@ -71,11 +71,17 @@ async function clearCaches(context: BrowserContext, page: Page) {
 
 async function waitForServiceWorker(page: Page) {
   await page.goto(`${base}/field`);
-  await page.waitForFunction(async () => {
-    if (!navigator.serviceWorker.controller) return false;
-    const keys = (await (await caches.open("turnstone-field-pages")).keys()).map((r) => new URL(r.url).pathname);
-    return keys.includes("/field") && keys.includes("/field/visit");
-  }, undefined, { timeout: 60_000, polling: 500 });
+  // waitForFunction does not await an async predicate, so poll an evaluate instead.
+  for (let i = 0; i < 240; i++) {
+    const ready = await page.evaluate(async () => {
+      if (!navigator.serviceWorker.controller) return false;
+      const keys = (await (await caches.open("turnstone-field-pages")).keys()).map((r) => new URL(r.url).pathname);
+      return keys.includes("/field") && keys.includes("/field/visit");
+    });
+    if (ready) return;
+    await page.waitForTimeout(500);
+  }
+  throw new Error("service worker not ready");
 }
 
 const dir = mkdtempSync(path.join(tmpdir(), "turnstone-bench-field-"));

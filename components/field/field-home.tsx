@@ -1,15 +1,15 @@
 "use client";
 
-import { useQuery } from "@tanstack/react-query";
 import { SafetyNotice } from "@/components/safety/safety-notice";
 import { fieldDb } from "@/lib/offline/db";
-import { loadReference } from "@/lib/offline/reference";
+import type { FieldReference } from "@/lib/offline/reference";
 import { OutboxPanel } from "./outbox-panel";
 import { useLive } from "./use-live";
+import { useFieldReference } from "./use-reference";
 
 /** The volunteer's home: their transects, drafts in progress, the outbox, the safety notice. */
-export function FieldHome({ firstName }: { firstName: string }) {
-  const reference = useQuery({ queryKey: ["field-reference"], queryFn: () => loadReference() });
+export function FieldHome({ firstName, initial }: { firstName: string; initial?: FieldReference }) {
+  const reference = useFieldReference(initial);
   const local = useLive(async () => {
     const visits = await fieldDb().visits.toArray();
     return {
@@ -17,7 +17,7 @@ export function FieldHome({ firstName }: { firstName: string }) {
       unsentByTransect: visits.filter((v) => v.phase === "submitted" && v.outbox !== "sent"),
     };
   }, []);
-  const data = reference.data?.data;
+  const data = reference.data;
   const season = data?.season;
 
   return (
@@ -25,32 +25,14 @@ export function FieldHome({ firstName }: { firstName: string }) {
       <div>
         <h1 className="text-2xl font-bold text-tideline-800">Hello, {firstName}</h1>
         {season && <p className="text-shingle-600">{season.name}: {season.startsOn} to {season.endsOn}</p>}
-        {reference.data?.fromPhone && <p className="text-sm text-sand-800">No signal: showing the copy saved on this phone.</p>}
+        {reference.offlineCopy && <p className="text-sm text-sand-800">No signal: showing the copy saved on this phone.</p>}
       </div>
 
-      {local && local.drafts.length > 0 && (
-        <section aria-labelledby="drafts-heading" className="card border-tideline-600">
-          <h2 id="drafts-heading" className="text-lg font-bold">Walks in progress</h2>
-          <ul className="mt-2 space-y-2">
-            {local.drafts.map((d) => {
-              const t = data?.transects.find((x) => x.id === d.transectId);
-              return (
-                <li key={d.id}>
-                  <a className="btn-quiet w-full justify-between" href={`/field/visit?id=${d.id}`}>
-                    <span>{t ? `${t.code} ${t.name}` : "Transect"} · {d.visitDate}</span>
-                    <span aria-hidden>›</span>
-                  </a>
-                </li>
-              );
-            })}
-          </ul>
-        </section>
-      )}
 
       <section aria-labelledby="my-transects">
         <h2 id="my-transects" className="mb-3 text-xl font-bold">My transects</h2>
-        {reference.isPending && <p>Loading your transects…</p>}
-        {reference.isError && <p className="card text-rust-700">{(reference.error as Error).message}</p>}
+        {reference.loading && <p>Loading your transects…</p>}
+        {reference.error && <p className="card text-rust-700">{reference.error}</p>}
         {data && data.transects.length === 0 && <p className="card">You have no transects yet. Your network organiser assigns them.</p>}
         <ul className="space-y-3">
           {data?.transects.map((t) => {
@@ -79,6 +61,25 @@ export function FieldHome({ firstName }: { firstName: string }) {
           })}
         </ul>
       </section>
+
+      {local && local.drafts.length > 0 && (
+        <section aria-labelledby="drafts-heading" className="card border-tideline-600">
+          <h2 id="drafts-heading" className="text-lg font-bold">Walks in progress</h2>
+          <ul className="mt-2 space-y-2">
+            {local.drafts.map((d) => {
+              const t = data?.transects.find((x) => x.id === d.transectId);
+              return (
+                <li key={d.id}>
+                  <a className="btn-quiet w-full justify-between" href={`/field/visit?id=${d.id}`}>
+                    <span>{t ? `${t.code} ${t.name}` : "Transect"} · {d.visitDate}</span>
+                    <span aria-hidden>›</span>
+                  </a>
+                </li>
+              );
+            })}
+          </ul>
+        </section>
+      )}
 
       <OutboxPanel />
       <p>

@@ -9,9 +9,20 @@ import { startSyncController } from "@/lib/offline/sync-controller";
 const fieldRoutes = ["/field", "/field/visit", "/field/records", "/safety"];
 export const FIELD_PAGES_CACHE = "turnstone-field-pages";
 
+/** Resolves once the page has loaded and the main thread has had a quiet moment. */
+function afterLoadAndIdle(): Promise<void> {
+  return new Promise((resolve) => {
+    const idle = () => ("requestIdleCallback" in window ? window.requestIdleCallback(() => resolve(), { timeout: 4000 }) : setTimeout(resolve, 1500));
+    if (document.readyState === "complete") idle();
+    else window.addEventListener("load", idle, { once: true });
+  });
+}
+
 async function registerServiceWorker() {
   if (!("serviceWorker" in navigator)) return;
   try {
+    // Installing the worker and caching pages competes with the page itself on a slow network.
+    await afterLoadAndIdle();
     await navigator.serviceWorker.register("/sw.js", { scope: "/" });
     await navigator.serviceWorker.ready;
     if (navigator.onLine && "caches" in window) {

@@ -1,4 +1,4 @@
-import { settledStatuses, type ItemResult, type SightingPayload, type SyncResponse, type VisitPayload } from "@/lib/sync/contract";
+import { settledStatuses, type ItemResult, type SightingPayload, type SyncResponse, type VisitPayload } from "@/lib/sync/protocol";
 import { fieldDb, type LocalSighting, type LocalVisit } from "./db";
 import { sendPhotos } from "./photo-upload";
 

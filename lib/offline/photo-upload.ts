@@ -2,12 +2,12 @@ import type { PhotoUploadTicket } from "@/lib/photos/contract";
 import { fieldDb, type LocalPhoto } from "./db";
 import type { OutboxRun } from "./outbox";
 
-async function errorMessage(res: Response): Promise<string> {
+async function readError(res: Response): Promise<{ code: string | null; message: string }> {
   try {
-    const body = (await res.json()) as { error?: { message?: string } };
-    return body.error?.message ?? `The server refused the photo (${res.status}).`;
+    const body = (await res.json()) as { error?: { code?: string; message?: string } };
+    return { code: body.error?.code ?? null, message: body.error?.message ?? `The server refused the photo (${res.status}).` };
   } catch {
-    return `The server refused the photo (${res.status}).`;
+    return { code: null, message: `The server refused the photo (${res.status}).` };
   }
 }
 
@@ -22,13 +22,16 @@ async function sendOne(fetcher: typeof fetch, photo: LocalPhoto): Promise<Step> 
     body: JSON.stringify({ id: photo.id, visitId: photo.visitId, sightingId: photo.sightingId, contentType: photo.contentType, bytes: photo.bytes }),
   });
   if (ticketRes.status === 409) return { ok: true }; // the server already has it, processed
-  if (!ticketRes.ok) return { ok: false, retry: ticketRes.status >= 500 || ticketRes.status === 401, reason: await errorMessage(ticketRes) };
+  if (!ticketRes.ok) return { ok: false, retry: ticketRes.status >= 500 || ticketRes.status === 401, reason: (await readError(ticketRes)).message };
   const ticket = (await ticketRes.json()) as PhotoUploadTicket;
   const put = await fetcher(ticket.uploadUrl, { method: "PUT", headers: ticket.headers, body: photo.blob });
   if (!put.ok) return { ok: false, retry: true, reason: `The photo store answered ${put.status}; trying again soon.` };
   const done = await fetcher(`/api/field/photos/${photo.id}/complete`, { method: "POST", credentials: "same-origin" });
-  if (done.ok || done.status === 409) return { ok: true };
-  return { ok: false, retry: done.status >= 500 || done.status === 401, reason: await errorMessage(done) };
+  if (done.ok) return { ok: true };
+  const error = await readError(done);
+  // The upload got lost on the way: keep the photo and upload it again on the next pass.
+  const lost = error.code === "photo_not_uploaded";
+  return { ok: false, retry: lost || done.status >= 500 || done.status === 401, reason: error.message };
 }
 
 /** Sends photos whose visit the server already has. Network failures leave them on the phone. */

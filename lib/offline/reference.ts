@@ -3,21 +3,25 @@ import { fieldDb } from "./db";
 
 export type { FieldReference };
 
-const KEY = "field-reference";
+export const REFERENCE_KEY = "field-reference";
 
-/** Fetches the reference data when there is signal and keeps the last good copy on the phone. */
-export async function loadReference(fetcher: typeof fetch = fetch): Promise<{ data: FieldReference; fromPhone: boolean }> {
-  try {
-    const res = await fetcher("/api/field/reference", { credentials: "same-origin", cache: "no-store" });
-    if (res.ok) {
-      const data = (await res.json()) as FieldReference;
-      await fieldDb().reference.put({ key: KEY, value: data, savedAt: new Date().toISOString() });
-      return { data, fromPhone: false };
-    }
-  } catch {
-    // offline: fall through to the phone's copy
-  }
-  const saved = await fieldDb().reference.get(KEY);
-  if (!saved) throw new Error("No copy of your transects on this phone yet. Open Turnstone once with a signal.");
-  return { data: saved.value as FieldReference, fromPhone: true };
+/** Keeps the newer of two copies (by when the server made them). */
+export async function keepReference(data: FieldReference): Promise<void> {
+  const saved = await fieldDb().reference.get(REFERENCE_KEY);
+  const savedAt = (saved?.value as FieldReference | undefined)?.savedAt ?? "";
+  if (data.savedAt > savedAt) await fieldDb().reference.put({ key: REFERENCE_KEY, value: data, savedAt: data.savedAt });
+}
+
+/** Fetches a fresh copy when there is signal and keeps it on the phone. Throws when offline. */
+export async function refreshReference(fetcher: typeof fetch = fetch): Promise<FieldReference> {
+  const res = await fetcher("/api/field/reference", { credentials: "same-origin", cache: "no-store" });
+  if (!res.ok) throw new Error(res.status === 401 ? "Sign in again to refresh your transects." : `The server answered ${res.status}.`);
+  const data = (await res.json()) as FieldReference;
+  await keepReference(data);
+  return data;
+}
+
+export async function phoneReference(): Promise<FieldReference | null> {
+  const saved = await fieldDb().reference.get(REFERENCE_KEY);
+  return (saved?.value as FieldReference | undefined) ?? null;
 }

@@ -1,14 +1,18 @@
 import { z } from "zod";
+import { MAX_BATCH_ITEMS } from "./protocol";
 
-// The wire format between the phone's outbox and POST /api/field/sync. Shared by the client
-// (to build batches) and the server (to validate them), so both always agree.
+// The wire format between the phone's outbox and POST /api/field/sync: the server validates
+// with these schemas; the phone builds batches from the same types. The parts without zod live
+// in ./protocol so the phone's bundle does not carry the validator.
+import { skyValues } from "./protocol";
+
+export * from "./protocol";
 
 const isoDate = z.iso.date({ message: "Use a date like 2026-05-14." });
 const clockTime = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d(:[0-5]\d)?$/, { message: "Use a time like 09:45." });
 const isoInstant = z.iso.datetime({ offset: true, message: "Use an ISO 8601 timestamp." });
 const optionalText = (max: number) => z.string().trim().max(max, { message: `At most ${max} characters.` }).nullable().optional();
 
-export const skyValues = ["clear", "mostly_sunny", "broken_cloud", "mostly_cloudy", "overcast"] as const;
 
 export const visitPayload = z
   .object({
@@ -28,7 +32,7 @@ export const visitPayload = z
     clientUpdatedAt: isoInstant,
   })
   .refine((v) => !v.endTime || v.endTime >= v.startTime, { message: "The visit cannot end before it starts.", path: ["endTime"] });
-export type VisitPayload = z.infer<typeof visitPayload>;
+export type VisitPayloadInput = z.infer<typeof visitPayload>;
 
 export const sightingPayload = z
   .object({
@@ -45,9 +49,8 @@ export const sightingPayload = z
     clientUpdatedAt: isoInstant,
   })
   .refine((s) => (s.latitude == null) === (s.longitude == null), { message: "A position needs both latitude and longitude.", path: ["latitude"] });
-export type SightingPayload = z.infer<typeof sightingPayload>;
+export type SightingPayloadInput = z.infer<typeof sightingPayload>;
 
-export const MAX_BATCH_ITEMS = 500;
 
 /** The envelope is checked first; items are then validated one by one so good ones still land. */
 export const syncEnvelope = z.object({
@@ -55,32 +58,7 @@ export const syncEnvelope = z.object({
   sightings: z.array(z.unknown()).max(MAX_BATCH_ITEMS).default([]),
 });
 
-export type ItemStatus =
-  | "created" // new on the server
-  | "updated" // the server copy was changed
-  | "unchanged" // a resend of what the server already has
-  | "deleted" // removed at the volunteer's request
-  | "kept-server" // the server's copy wins (already reviewed, or newer)
-  | "invalid" // failed validation: see errors
-  | "forbidden"; // not the volunteer's transect or visit
 
-export type ItemResult = {
-  kind: "visit" | "sighting";
-  id: string | null;
-  index: number;
-  status: ItemStatus;
-  reason?: string;
-  errors?: Record<string, string[]>;
-};
-
-export type SyncResponse = { results: ItemResult[]; serverTime: string };
-
-/** HTTP status of a batch answer: 403 if any item was forbidden, else 400 if any was invalid, else 200. */
-export function batchStatus(results: ItemResult[]): 200 | 400 | 403 {
-  if (results.some((r) => r.status === "forbidden")) return 403;
-  if (results.some((r) => r.status === "invalid")) return 400;
-  return 200;
-}
-
-/** Item statuses after which the phone may forget its copy. */
-export const settledStatuses: ItemStatus[] = ["created", "updated", "unchanged", "deleted", "kept-server"];
+// Compile-time guard: the zod-free types in ./protocol describe exactly what these schemas accept.
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+export const protocolTypesMatchSchemas: [Same<VisitPayloadInput, import("./protocol").VisitPayload>, Same<SightingPayloadInput, import("./protocol").SightingPayload>] = [true, true];

@@ -6,7 +6,7 @@ import { beaufortScale } from "@/lib/field/beaufort";
 import { conditionWarnings, type ConditionsRules } from "@/lib/field/conditions";
 import { skyLabel, startVisitSchema, timeNow, todayLocal, type StartVisitInput, type StartVisitValues } from "@/lib/field/visit-form";
 import { createVisit } from "@/lib/offline/records";
-import { skyValues } from "@/lib/sync/contract";
+import { skyValues } from "@/lib/sync/protocol";
 
 type Transect = { id: string; code: string; name: string; coastal: boolean };
 

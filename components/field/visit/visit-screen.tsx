@@ -1,21 +1,24 @@
 "use client";
 
-import { useQuery } from "@tanstack/react-query";
+import dynamic from "next/dynamic";
 import { useSearchParams } from "next/navigation";
 import { useState } from "react";
-import { loadReference } from "@/lib/offline/reference";
+import type { FieldReference } from "@/lib/offline/reference";
 import { SafetyGate } from "../safety-gate";
+import { useFieldReference } from "../use-reference";
 import { RecordingScreen } from "./recording-screen";
-import { StartVisitForm } from "./start-visit-form";
+
+// The start form carries the form and validation libraries; the recording screen does not need them.
+const StartVisitForm = dynamic(() => import("./start-visit-form").then((m) => m.StartVisitForm), { ssr: false, loading: () => <p>Loading…</p> });
 
 /** /field/visit?transect=ID starts a visit; /field/visit?id=ID records into one. Works offline. */
-export function VisitScreen() {
+export function VisitScreen({ initial }: { initial?: FieldReference }) {
   const params = useSearchParams();
   const [visitId, setVisitId] = useState<string | null>(params.get("id"));
-  const reference = useQuery({ queryKey: ["field-reference"], queryFn: () => loadReference() });
-  if (reference.isPending) return <p>Loading…</p>;
-  if (reference.isError) return <p className="card text-rust-700">{(reference.error as Error).message}</p>;
-  const data = reference.data.data;
+  const reference = useFieldReference(initial);
+  if (reference.error) return <p className="card text-rust-700">{reference.error}</p>;
+  const data = reference.data;
+  if (!data) return <p>Loading…</p>;
 
   if (visitId) {
     return <RecordingScreen visitId={visitId} transects={data.transects} checklist={data.checklist} seenByTransect={data.seenByTransect} />;

@@ -11,12 +11,19 @@ export class FieldHomePage {
 
   /** Waits until the service worker controls the page and the field pages are cached. */
   async waitUntilReadyOffline() {
-    await this.page.waitForFunction(async () => {
-      if (!navigator.serviceWorker.controller) return false;
-      const cache = await caches.open("turnstone-field-pages");
-      const keys = (await cache.keys()).map((r) => new URL(r.url).pathname);
-      return ["/field", "/field/visit"].every((p) => keys.includes(p));
-    }, undefined, { timeout: 30_000, polling: 250 });
+    // waitForFunction does not await an async predicate, so poll an evaluate instead.
+    const deadline = Date.now() + 45_000;
+    while (Date.now() < deadline) {
+      const ready = await this.page.evaluate(async () => {
+        if (!navigator.serviceWorker.controller) return false;
+        const cache = await caches.open("turnstone-field-pages");
+        const keys = (await cache.keys()).map((r) => new URL(r.url).pathname);
+        return ["/field", "/field/visit"].every((p) => keys.includes(p));
+      });
+      if (ready) return;
+      await this.page.waitForTimeout(250);
+    }
+    throw new Error("The service worker did not take control and cache the field pages in time.");
   }
 
   async startVisitOnFirstTransect() {

@@ -2,14 +2,16 @@ import type { Metadata } from "next";
 import { Suspense } from "react";
 import { VisitScreen } from "@/components/field/visit/visit-screen";
 import { requirePageActor } from "@/lib/auth/guard";
+import { fieldReference } from "@/lib/queries/field-reference";
 
 export const metadata: Metadata = { title: "Visit" };
 
 export default async function VisitPage() {
-  await requirePageActor(["volunteer"], "/field/visit");
+  const actor = await requirePageActor(["volunteer"], "/field/visit");
+  const initial = await fieldReference(actor);
   return (
     <Suspense fallback={<p>Loading…</p>}>
-      <VisitScreen />
+      <VisitScreen initial={initial} />
     </Suspense>
   );
 }

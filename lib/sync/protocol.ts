@@ -1,0 +1,68 @@
+// The parts of the sync protocol the phone needs at run time, free of the zod validator.
+
+export const skyValues = ["clear", "mostly_sunny", "broken_cloud", "mostly_cloudy", "overcast"] as const;
+
+export const MAX_BATCH_ITEMS = 500;
+
+/** What the phone sends for a visit (the server checks it with contract.ts's visitPayload). */
+export type VisitPayload = {
+  id: string;
+  transectId: string;
+  visitDate: string;
+  startTime: string;
+  endTime?: string | null;
+  temperatureC?: number | null;
+  windBeaufort?: number | null;
+  cloudCoverPercent?: number | null;
+  sky?: (typeof skyValues)[number] | null;
+  coRecorders?: string | null;
+  completeList: boolean;
+  notes?: string | null;
+  submittedAt?: string | null;
+  clientUpdatedAt: string;
+};
+
+/** What the phone sends for a sighting (checked with contract.ts's sightingPayload). */
+export type SightingPayload = {
+  id: string;
+  visitId: string;
+  speciesId: string;
+  count: number;
+  section?: number | null;
+  latitude?: number | null;
+  longitude?: number | null;
+  accuracyMetres?: number | null;
+  note?: string | null;
+  deleted?: boolean;
+  clientUpdatedAt: string;
+};
+
+export type ItemStatus =
+  | "created" // new on the server
+  | "updated" // the server copy was changed
+  | "unchanged" // a resend of what the server already has
+  | "deleted" // removed at the volunteer's request
+  | "kept-server" // the server's copy wins (already reviewed, or newer)
+  | "invalid" // failed validation: see errors
+  | "forbidden"; // not the volunteer's transect or visit
+
+export type ItemResult = {
+  kind: "visit" | "sighting";
+  id: string | null;
+  index: number;
+  status: ItemStatus;
+  reason?: string;
+  errors?: Record<string, string[]>;
+};
+
+export type SyncResponse = { results: ItemResult[]; serverTime: string };
+
+/** HTTP status of a batch answer: 403 if any item was forbidden, else 400 if any was invalid, else 200. */
+export function batchStatus(results: ItemResult[]): 200 | 400 | 403 {
+  if (results.some((r) => r.status === "forbidden")) return 403;
+  if (results.some((r) => r.status === "invalid")) return 400;
+  return 200;
+}
+
+/** Item statuses after which the phone may forget its copy. */
+export const settledStatuses: ItemStatus[] = ["created", "updated", "unchanged", "deleted", "kept-server"];
