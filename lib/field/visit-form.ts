@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { skyValues } from "@/lib/sync/contract";
+import { skyValues } from "@/lib/sync/protocol";
 
 const optionalNumber = (schema: z.ZodNumber) =>
   z.preprocess((v) => (v === "" || v === null || v === undefined || Number.isNaN(v) ? null : Number(v)), schema.nullable());
@@ -26,12 +26,4 @@ export const skyLabel: Record<(typeof skyValues)[number], string> = {
   overcast: "Overcast",
 };
 
-export function todayLocal(): string {
-  const d = new Date();
-  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, "0")}-${String(d.getDate()).padStart(2, "0")}`;
-}
-
-export function timeNow(): string {
-  const d = new Date();
-  return `${String(d.getHours()).padStart(2, "0")}:${String(d.getMinutes()).padStart(2, "0")}`;
-}
+export { timeNow, todayLocal } from "./clock";
