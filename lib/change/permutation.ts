@@ -84,33 +84,51 @@ function countExceedances(
   start: number,
   count: number,
 ): Int32Array {
+  const exceed = new Int32Array(prepared.sites.length);
+  const threshold = Float64Array.from(observed, (d) => d - TOLERANCE);
+  // One specialised loop per mode: V8 optimises the smaller loops noticeably better.
+  if (mode === "paired") pairedKernel(prepared, threshold, seed, start, count, exceed);
+  else independentKernel(prepared, threshold, seed, start, count, exceed);
+  return exceed;
+}
+
+/**
+ * Counts, per site, permuted D >= threshold. A, B, C of site s sit side by side at 3s,
+ * 3s+1, 3s+2, so one placement touches one spot; the same expression as observedSums gives
+ * D, so an unchanged table reproduces D bit for bit. An empty permuted site has no D and
+ * never counts (method.md).
+ */
+function countSites(abc: Float64Array, threshold: Float64Array, double: boolean, exceed: Int32Array): void {
+  for (let i = 0; i < exceed.length; i++) {
+    const A = abc[3 * i]!;
+    const B = abc[3 * i + 1]!;
+    const C = abc[3 * i + 2]!;
+    const den = (double ? 2 * A : A) + B + C;
+    if (den > 0 && (B + C) / den >= threshold[i]!) exceed[i]!++;
+  }
+}
+
+// Both kernels inline xoshiro128** and Lemire's bounded draw exactly as Xoshiro128.below in
+// random.ts (a method call per draw costs about three times more); the dense reference uses
+// the class, and the tests require identical counts, so the copies cannot drift apart.
+
+/** Paired mode: one shuffle per species moves each cell's (T1, T2) pair together. */
+function pairedKernel(prepared: PreparedPair, threshold: Float64Array, seed: number, start: number, count: number, exceed: Int32Array): void {
   const n = prepared.sites.length;
   const p = prepared.species.length;
   const { colStart, before, after } = prepared;
   const double = doublesShared(prepared.index);
-  const paired = mode === "paired";
-  const exceed = new Int32Array(n);
   const pos = new Int32Array(n);
-  const dest = new Int32Array(n);
-  const destT1 = new Int32Array(n);
-  // A, B, C of site s side by side at 3s, 3s+1, 3s+2, so one placement touches one spot.
   const abc = new Float64Array(3 * n);
-  const threshold = Float64Array.from(observed, (d) => d - TOLERANCE);
-
-  // Paired mode moves a cell's (T1, T2) pair together, so its parts can be precomputed.
-  const cells = before.length;
-  const cellParts = new Float64Array(3 * cells);
-  for (let c = 0; c < cells; c++) {
+  // A cell's parts never change when the pair moves together: precompute them.
+  const cellParts = new Float64Array(3 * before.length);
+  for (let c = 0; c < before.length; c++) {
     const m = before[c]! < after[c]! ? before[c]! : after[c]!;
     cellParts[3 * c] = m;
     cellParts[3 * c + 1] = before[c]! - m;
     cellParts[3 * c + 2] = after[c]! - m;
   }
-  // Independent mode: what is left of each site's T1 value once T2 is placed.
-  const remaining = new Float64Array(n);
-
   for (let r = start; r < start + count; r++) {
-    // xoshiro128** (random.ts) inlined: a method call per draw costs about three times more.
     const state = streamState(seed, STREAM_SITE_PERMUTATION, r);
     let s0 = state[0]!;
     let s1 = state[1]!;
@@ -121,11 +139,63 @@ function countExceedances(
     for (let j = 0; j < p; j++) {
       const lo = colStart[j]!;
       const k = colStart[j + 1]! - lo;
-      // Paired: one shuffle places both seasons. Independent: T1's column, then T2's.
-      for (let pass = paired ? 1 : 0; pass < 2; pass++) {
-        const placed = pass === 0 ? destT1 : dest;
+      for (let t = 0; t < k; t++) {
+        const m = n - t;
+        let high: number;
+        for (;;) {
+          const r5 = Math.imul(s1, 5);
+          const out = Math.imul((r5 << 7) | (r5 >>> 25), 9) >>> 0;
+          const t9 = s1 << 9;
+          s2 ^= s0;
+          s3 ^= s1;
+          s1 ^= s2;
+          s0 ^= s3;
+          s2 ^= t9;
+          s3 = (s3 << 11) | (s3 >>> 21);
+          const prod = out * m;
+          high = (prod * TWO_TO_MINUS_32) | 0;
+          const low = prod - high * 4294967296;
+          if (low >= m || low >= (4294967296 - m) % m) break;
+        }
+        const u = t + high;
+        const s = pos[u]!;
+        pos[u] = pos[t]!;
+        pos[t] = s;
+        const q = 3 * s;
+        const c = 3 * (lo + t);
+        abc[q]! += cellParts[c]!;
+        abc[q + 1]! += cellParts[c + 1]!;
+        abc[q + 2]! += cellParts[c + 2]!;
+      }
+    }
+    countSites(abc, threshold, double, exceed);
+  }
+}
+
+/** Independent mode: per species, T1's column is shuffled, then T2's with fresh draws. */
+function independentKernel(prepared: PreparedPair, threshold: Float64Array, seed: number, start: number, count: number, exceed: Int32Array): void {
+  const n = prepared.sites.length;
+  const p = prepared.species.length;
+  const { colStart, before, after } = prepared;
+  const double = doublesShared(prepared.index);
+  const pos = new Int32Array(n);
+  const abc = new Float64Array(3 * n);
+  const placedT1 = new Int32Array(n);
+  // What is left of each site's T1 value once T2's values are placed: lost.
+  const remaining = new Float64Array(n);
+  for (let r = start; r < start + count; r++) {
+    const state = streamState(seed, STREAM_SITE_PERMUTATION, r);
+    let s0 = state[0]!;
+    let s1 = state[1]!;
+    let s2 = state[2]!;
+    let s3 = state[3]!;
+    for (let i = 0; i < n; i++) pos[i] = i;
+    abc.fill(0);
+    for (let j = 0; j < p; j++) {
+      const lo = colStart[j]!;
+      const k = colStart[j + 1]! - lo;
+      for (let pass = 0; pass < 2; pass++) {
         for (let t = 0; t < k; t++) {
-          // Uniform u in [t, n) by Lemire's method, exactly as Xoshiro128.below.
           const m = n - t;
           let high: number;
           for (;;) {
@@ -147,50 +217,27 @@ function countExceedances(
           const s = pos[u]!;
           pos[u] = pos[t]!;
           pos[t] = s;
-          placed[t] = s;
-        }
-        if (paired) {
-          for (let t = 0; t < k; t++) {
-            const q = 3 * dest[t]!;
-            const c = 3 * (lo + t);
-            abc[q]! += cellParts[c]!;
-            abc[q + 1]! += cellParts[c + 1]!;
-            abc[q + 2]! += cellParts[c + 2]!;
-          }
-        } else if (pass === 0) {
-          for (let t = 0; t < k; t++) remaining[destT1[t]!] = before[lo + t]!;
-        } else {
-          for (let t = 0; t < k; t++) {
-            const s = dest[t]!;
+          if (pass === 0) {
+            placedT1[t] = s;
+            remaining[s] = before[lo + t]!;
+          } else {
             const x2 = after[lo + t]!;
             const x1 = remaining[s]!;
-            const m = x1 < x2 ? x1 : x2;
-            abc[3 * s]! += m;
-            abc[3 * s + 2]! += x2 - m;
-            remaining[s] = x1 - m;
+            const mn = x1 < x2 ? x1 : x2;
+            abc[3 * s]! += mn;
+            abc[3 * s + 2]! += x2 - mn;
+            remaining[s] = x1 - mn;
           }
         }
       }
-      if (!paired) {
-        // What is left of the T1 cells after T2 is placed is lost.
-        for (let t = 0; t < k; t++) {
-          const s = destT1[t]!;
-          abc[3 * s + 1]! += remaining[s]!;
-          remaining[s] = 0;
-        }
+      for (let t = 0; t < k; t++) {
+        const s = placedT1[t]!;
+        abc[3 * s + 1]! += remaining[s]!;
+        remaining[s] = 0;
       }
     }
-    // An empty permuted site has no D, so it never counts as >= (method.md).
-    for (let i = 0; i < n; i++) {
-      const A = abc[3 * i]!;
-      const B = abc[3 * i + 1]!;
-      const C = abc[3 * i + 2]!;
-      // Same expression as observedSums, so an unchanged table reproduces D bit for bit.
-      const den = (double ? 2 * A : A) + B + C;
-      if (den > 0 && (B + C) / den >= threshold[i]!) exceed[i]!++;
-    }
+    countSites(abc, threshold, double, exceed);
   }
-  return exceed;
 }
 
 /** Fixed ranges covering permutations 0 .. total-1, for threads or a job queue. */
