@@ -70,7 +70,7 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
               const t = data?.transects.find((x) => x.id === d.transectId);
               return (
                 <li key={d.id}>
-                  <a className="btn-quiet w-full justify-between" href={`/field/visit?id=${d.id}`}>
+                  <a className="btn-quiet w-full justify-between" href={`/field/visit?id=${d.id}&transect=${d.transectId}`}>
                     <span>{t ? `${t.code} ${t.name}` : "Transect"} · {d.visitDate}</span>
                     <span aria-hidden>›</span>
                   </a>

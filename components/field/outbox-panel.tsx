@@ -74,7 +74,7 @@ export function OutboxPanel() {
               <li key={v.id} className="rounded-lg border border-rust-700 bg-rust-100 p-2 text-sm text-rust-700">
                 Visit on {v.visitDate}: {v.attention}{" "}
                 {v.outbox === "needs-attention" && (
-                  <a className="font-bold underline" href={`/field/visit?id=${v.id}`}>Open it</a>
+                  <a className="font-bold underline" href={`/field/visit?id=${v.id}&transect=${v.transectId}`}>Open it</a>
                 )}
               </li>
             ))}

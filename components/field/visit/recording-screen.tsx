@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { beaufortScale } from "@/lib/field/beaufort";
 import type { ChecklistEntry } from "@/lib/field/species-search";
-import { timeNow } from "@/lib/field/visit-form";
+import { timeNow } from "@/lib/field/clock";
 import { fieldDb, type LocalSighting } from "@/lib/offline/db";
 import { deleteDraftVisit, deleteSighting, returnToDraft, submitVisit } from "@/lib/offline/records";
 import { syncNow } from "@/lib/offline/sync-controller";
@@ -12,7 +12,20 @@ import { SightingForm } from "./sighting-form";
 
 type Transect = { id: string; code: string; name: string; sectionCount: number };
 
-export function RecordingScreen({ visitId, transects, checklist, seenByTransect }: { visitId: string; transects: Transect[]; checklist: ChecklistEntry[]; seenByTransect: Record<string, string[]> }) {
+export function RecordingScreen({
+  visitId,
+  transectHint,
+  transects,
+  checklist,
+  seenByTransect,
+}: {
+  visitId: string;
+  /** From the address, so the heading renders on the server before the phone's store is read. */
+  transectHint: string | null;
+  transects: Transect[];
+  checklist: ChecklistEntry[];
+  seenByTransect: Record<string, string[]>;
+}) {
   const data = useLive(async () => {
     const db = fieldDb();
     const visit = await db.visits.get(visitId);
@@ -28,7 +41,15 @@ export function RecordingScreen({ visitId, transects, checklist, seenByTransect 
   const [notes, setNotes] = useState("");
   const [error, setError] = useState<string | null>(null);
 
-  if (data === undefined) return <p>Loading the visit…</p>;
+  if (data === undefined) {
+    const hinted = transects.find((t) => t.id === transectHint);
+    return (
+      <div>
+        <h1 className="text-2xl font-bold text-tideline-800">{hinted ? `${hinted.code} ${hinted.name}` : "Visit"}</h1>
+        <p className="text-sm text-shingle-600">Opening the walk saved on this phone…</p>
+      </div>
+    );
+  }
   if (!data.visit) return <p className="card">This visit is not on this phone. <a className="font-bold text-tideline-700" href="/field">Back to my transects</a></p>;
   const { visit, sightings, photos } = data;
   const transect = transects.find((t) => t.id === visit.transectId);
@@ -49,7 +70,7 @@ export function RecordingScreen({ visitId, transects, checklist, seenByTransect 
     <div className="space-y-4">
       <div>
         <h1 className="text-2xl font-bold text-tideline-800">{transect ? `${transect.code} ${transect.name}` : "Visit"}</h1>
-        <p className="text-shingle-600">
+        <p className="text-sm text-shingle-600">
           {visit.visitDate} from {visit.startTime}
           {visit.temperatureC != null && ` · ${visit.temperatureC} °C`}
           {visit.windBeaufort != null && ` · wind ${visit.windBeaufort} (${beaufortScale[visit.windBeaufort]?.name})`}

@@ -10,7 +10,7 @@ import { skyValues } from "@/lib/sync/protocol";
 
 type Transect = { id: string; code: string; name: string; coastal: boolean };
 
-export function StartVisitForm({ transects, transectId, rules, onStarted }: { transects: Transect[]; transectId: string; rules: ConditionsRules; onStarted: (visitId: string) => void }) {
+export function StartVisitForm({ transects, transectId, rules, onStarted }: { transects: Transect[]; transectId: string; rules: ConditionsRules; onStarted: (visitId: string, transectId: string) => void }) {
   const { register, handleSubmit, control, formState: { errors, isSubmitting } } = useForm<StartVisitInput, unknown, StartVisitValues>({
     resolver: zodResolver(startVisitSchema),
     defaultValues: { transectId, visitDate: todayLocal(), startTime: timeNow(), temperatureC: "", windBeaufort: "", cloudCoverPercent: "", sky: "", coRecorders: "" } as unknown as StartVisitInput,
@@ -34,7 +34,7 @@ export function StartVisitForm({ transects, transectId, rules, onStarted }: { tr
       sky: values.sky,
       coRecorders: values.coRecorders,
     });
-    onStarted(id);
+    onStarted(id, values.transectId);
   });
 
   const err = (name: keyof StartVisitInput) => errors[name] && <p className="field-error" id={`${name}-error`}>{String(errors[name]?.message)}</p>;

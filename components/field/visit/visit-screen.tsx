@@ -11,6 +11,8 @@ import { RecordingScreen } from "./recording-screen";
 // The start form carries the form and validation libraries; the recording screen does not need them.
 const StartVisitForm = dynamic(() => import("./start-visit-form").then((m) => m.StartVisitForm), { ssr: false, loading: () => <p>Loading…</p> });
 
+export const visitHref = (visitId: string, transectId: string) => `/field/visit?id=${visitId}&transect=${transectId}`;
+
 /** /field/visit?transect=ID starts a visit; /field/visit?id=ID records into one. Works offline. */
 export function VisitScreen({ initial }: { initial?: FieldReference }) {
   const params = useSearchParams();
@@ -21,7 +23,7 @@ export function VisitScreen({ initial }: { initial?: FieldReference }) {
   if (!data) return <p>Loading…</p>;
 
   if (visitId) {
-    return <RecordingScreen visitId={visitId} transects={data.transects} checklist={data.checklist} seenByTransect={data.seenByTransect} />;
+    return <RecordingScreen visitId={visitId} transectHint={params.get("transect")} transects={data.transects} checklist={data.checklist} seenByTransect={data.seenByTransect} />;
   }
   const transectId = params.get("transect") ?? data.transects[0]?.id;
   if (!transectId) return <p className="card">You have no transects to record on yet.</p>;
@@ -31,9 +33,9 @@ export function VisitScreen({ initial }: { initial?: FieldReference }) {
         transects={data.transects}
         transectId={transectId}
         rules={data.rules}
-        onStarted={(id) => {
+        onStarted={(id, startedOn) => {
           // Stay on this page (no request needed offline) but make a reload reopen the visit.
-          window.history.replaceState(null, "", `/field/visit?id=${id}`);
+          window.history.replaceState(null, "", visitHref(id, startedOn));
           setVisitId(id);
         }}
       />
