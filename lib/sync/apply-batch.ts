@@ -81,6 +81,11 @@ export async function applySyncBatch(actor: Actor, body: unknown): Promise<SyncO
     sightings: parseItems("sighting", envelope.data.sightings, sightingPayload),
   };
 
+  if (!batch.visits.valid.length && !batch.sightings.valid.length) {
+    // Nothing to write: answer without touching the database.
+    const results = [...batch.visits.rejected, ...batch.sightings.rejected];
+    return { status: batchStatus(results), response: { results, serverTime: new Date().toISOString() } };
+  }
   for (let attempt = 1; ; attempt++) {
     try {
       const results = await db().transaction((tx) => applyInTransaction(tx, actor, batch));

@@ -27,7 +27,9 @@ const reviewedSightingOfVisit = sql<boolean>`exists (select 1 from ${sightings} 
  * Reads the batch's server state inside its transaction. Existing visits and sightings are
  * locked (FOR UPDATE) so a coordinator's review or a parallel resend cannot slip in between
  * this read and the batch's writes. The queries are issued together: postgres-js pipelines
- * them on the transaction's connection, so they cost about one round trip.
+ * them on the transaction's connection, so they cost about one round trip. They are marked
+ * prepared because drizzle otherwise has postgres-js describe every parameterised statement
+ * first, an extra round trip per query; prepared, the statement is parsed once per connection.
  */
 export async function loadServerState(tx: Transaction, actor: Actor, keys: StateKeys): Promise<ServerState> {
   const none = Promise.resolve([] as never[]);
@@ -38,6 +40,8 @@ export async function loadServerState(tx: Transaction, actor: Actor, keys: State
           .from(transectAssignments)
           .innerJoin(transects, eq(transects.id, transectAssignments.transectId))
           .where(and(eq(transectAssignments.userId, actor.id), sql`${transectAssignments.transectId} = any(${uuidArray(keys.transectIds)})`))
+          .prepare("sync_assigned")
+          .execute()
       : none,
     keys.visitIds.length
       ? tx
@@ -47,6 +51,8 @@ export async function loadServerState(tx: Transaction, actor: Actor, keys: State
           .where(sql`${visits.id} = any(${uuidArray(keys.visitIds)})`)
           .orderBy(visits.id)
           .for("update", { of: visits })
+          .prepare("sync_visits")
+          .execute()
       : none,
     keys.sightingIds.length
       ? tx
@@ -56,9 +62,15 @@ export async function loadServerState(tx: Transaction, actor: Actor, keys: State
           .where(sql`${sightings.id} = any(${uuidArray(keys.sightingIds)})`)
           .orderBy(sightings.id)
           .for("update", { of: sightings })
+          .prepare("sync_sightings")
+          .execute()
       : none,
-    keys.speciesIds.length ? tx.select({ id: species.id }).from(species).where(sql`${species.id} = any(${uuidArray(keys.speciesIds)})`) : none,
-    keys.visitIds.length ? tx.select({ id: seasons.id, startsOn: seasons.startsOn, endsOn: seasons.endsOn }).from(seasons) : none,
+    keys.speciesIds.length
+      ? tx.select({ id: species.id }).from(species).where(sql`${species.id} = any(${uuidArray(keys.speciesIds)})`).prepare("sync_species").execute()
+      : none,
+    keys.visitIds.length
+      ? tx.select({ id: seasons.id, startsOn: seasons.startsOn, endsOn: seasons.endsOn }).from(seasons).prepare("sync_seasons").execute()
+      : none,
   ]);
   return {
     assigned: new Map(assignedRows.map((r) => [r.id, r.sectionCount])),
