@@ -8,6 +8,7 @@
 //   BENCH_BASE_URL (default http://localhost:3000), DATABASE_URL (the app's database).
 import "./load-env";
 import { randomBytes, randomUUID } from "node:crypto";
+import { availableParallelism, loadavg } from "node:os";
 import { closeDb, sqlClient } from "../db/client";
 import { hashPassword } from "../lib/auth/password";
 import type { SyncResponse } from "../lib/sync/contract";
@@ -144,6 +145,9 @@ async function countStored(volunteers: Volunteer[]) {
 
 async function main(): Promise<boolean> {
   console.log(`bench:sync against ${BASE_URL}: ${VOLUNTEERS} volunteers x ${BATCHES_PER_VOLUNTEER} batches x (1 visit + ${SIGHTINGS_PER_BATCH} sightings)`);
+  // App, database and this client share the machine: its load says how busy it was anyway.
+  const load = () => loadavg().map((l) => l.toFixed(2)).join(" ");
+  console.log(`${availableParallelism()} CPUs, load average ${load()}`);
   const health = await fetch(`${BASE_URL}/api/health`).catch(() => null);
   if (!health) throw new Error(`the app is not answering at ${BASE_URL} (start it, or set BENCH_BASE_URL)`);
   await removeBenchData(); // leftovers of an interrupted earlier run
@@ -203,6 +207,7 @@ async function main(): Promise<boolean> {
     console.log(`raw multi-row INSERTs (same ${stored.sent} sightings + visits, one connection, one rolled-back transaction): ${rawRate.toFixed(0)} sightings/s`);
     console.log(`  for context, the same spread over ${poolSize} connections (the app's pool size): ${rawParallelRate.toFixed(0)} sightings/s (sync would be ${(syncRate / rawParallelRate).toFixed(2)} of it)`);
     console.log(`ratio sync / raw insert: ${ratio.toFixed(2)}`);
+    console.log(`load average at the end: ${load()}`);
 
     const checks = [
       [`ratio >= ${TARGET_RATIO}`, ratio >= TARGET_RATIO],
