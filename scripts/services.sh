@@ -107,15 +107,15 @@ recreate_database() {
 port_open() { (exec 3<>"/dev/tcp/127.0.0.1/$1") >/dev/null 2>&1; }
 
 start_fakes() {
-  local s3_port="${TURNSTONE_S3_PORT:-54330}" smtp_port="${TURNSTONE_SMTP_PORT:-54331}"
-  if port_open "$s3_port" && port_open "$smtp_port"; then log "Local S3 and SMTP fakes already running (reusing them)"; return 0; fi
+  local s3_port="${TURNSTONE_S3_PORT:-54330}" smtp_port="${TURNSTONE_SMTP_PORT:-54331}" mail_api_port="${TURNSTONE_MAIL_API_PORT:-54332}"
+  if port_open "$s3_port" && port_open "$smtp_port" && port_open "$mail_api_port"; then log "Local S3 and SMTP fakes already running (reusing them)"; return 0; fi
   mkdir -p "$DATA_DIR"
   log "Starting local S3 fake on 127.0.0.1:$s3_port and SMTP fake on 127.0.0.1:$smtp_port"
   nohup "$ROOT/node_modules/.bin/tsx" "$ROOT/scripts/fakes.ts" >"$DATA_DIR/fakes.log" 2>&1 &
   echo $! > "$DATA_DIR/fakes.pid"
   local i
   for i in $(seq 1 60); do
-    if port_open "$s3_port" && port_open "$smtp_port"; then return 0; fi
+    if port_open "$s3_port" && port_open "$smtp_port" && port_open "$mail_api_port"; then return 0; fi
     sleep 0.5
   done
   die "local fakes did not start; see $DATA_DIR/fakes.log"

@@ -16,7 +16,11 @@ for (const name of ["vitest.json", "browser.json"]) {
   }
   const report = JSON.parse(readFileSync(file, "utf8"));
   passed += report.numPassedTests ?? 0;
-  failed += (report.numFailedTests ?? 0) + (report.numFailedTestSuites ?? 0);
+  // A file that failed without a failing test (an import error, a crashed hook) counts once.
+  const brokenFiles = (report.testResults ?? []).filter(
+    (file) => file.status === "failed" && !(file.assertionResults ?? []).some((a) => a.status === "failed"),
+  ).length;
+  failed += (report.numFailedTests ?? 0) + brokenFiles;
   skipped += (report.numPendingTests ?? 0) + (report.numTodoTests ?? 0);
   if ((report.numTotalTests ?? 0) === 0) failed += 1;
 }
