@@ -1,5 +1,6 @@
 // Shared types of the season-to-season change engine. Plain data only, so results can be
 // stored as JSON and chunk inputs can cross thread and process boundaries.
+import type { SiteParts } from "./indices";
 
 /** The four temporal beta-diversity indices of Legendre (2019). */
 export const INDICES = ["jaccard", "sorensen", "ruzicka", "percentage-difference"] as const;
@@ -53,19 +54,9 @@ export interface PreparedPair {
   readonly after: Float64Array;
 }
 
-/** Per-site change, in the shape the JSON output uses. */
-export interface SiteChange {
+/** Per-site change, in the shape the JSON output uses: the parts (a/A shared, b/B lost, c/C gained, ...) plus the test. */
+export interface SiteChange extends SiteParts {
   readonly site: string;
-  /** a (presence-absence) or A (abundance): what both seasons share. */
-  readonly shared: number;
-  /** b or B: present or abundant at T1 only (lost). */
-  readonly lost: number;
-  /** c or C: present or abundant at T2 only (gained). */
-  readonly gained: number;
-  readonly losses: number;
-  readonly gains: number;
-  readonly dissimilarity: number;
-  readonly direction: Direction;
   readonly p: number | null;
   readonly pAdjusted: number | null;
   readonly exceptional: boolean;
