@@ -44,7 +44,8 @@ describe("recording a visit with no signal", () => {
     await home.startVisitOnFirstTransect();
     const visit = new VisitPage(page);
     await visit.acknowledgeSafetyIfAsked();
-    await visit.start({ temperature: "18", wind: "2" });
+    // Times are set, not taken from the clock, so a run near midnight cannot end before it starts.
+    await visit.start({ startTime: "10:30", temperature: "18", wind: "2" });
 
     // A photo with GPS in its EXIF, to prove the server strips it (exifr, a well-known EXIF reader, sees it first).
     const photo = await phoneJpeg();
@@ -62,7 +63,7 @@ describe("recording a visit with no signal", () => {
     expect(await visit.sightingRows().count()).toBe(5);
     await expect.poll(() => page.getByText("1 photo").count()).toBe(1);
 
-    await visit.finishAndSubmit();
+    await visit.finishAndSubmit("11:45");
     await page.goto("/field");
     await page.getByTestId("outbox").waitFor();
     await expect.poll(() => home.outboxCount("on-phone")).toBe(7); // visit + 5 sightings + 1 photo

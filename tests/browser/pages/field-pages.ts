@@ -52,7 +52,8 @@ export class VisitPage {
     await form.waitFor();
   }
 
-  async start(conditions: { temperature: string; wind: string }) {
+  async start(conditions: { startTime: string; temperature: string; wind: string }) {
+    await this.page.getByLabel("Start time").fill(conditions.startTime);
     await this.page.getByLabel("Temperature (°C)").fill(conditions.temperature);
     await this.page.getByLabel("Wind (Beaufort force)").selectOption(conditions.wind);
     await this.page.getByRole("button", { name: "Start recording" }).click();
@@ -74,8 +75,9 @@ export class VisitPage {
     return this.page.getByTestId("sighting-row");
   }
 
-  async finishAndSubmit() {
+  async finishAndSubmit(endTime: string) {
     await this.page.getByRole("button", { name: "Finish the walk" }).click();
+    await this.page.getByLabel("End time").fill(endTime);
     await this.page.getByLabel(/I recorded every species I could identify/).check();
     await this.page.getByRole("button", { name: "Submit visit" }).click();
     await this.page.getByTestId("visit-submitted").waitFor();
