@@ -2,6 +2,7 @@
 import { defaultCache } from "@serwist/next/worker";
 import type { PrecacheEntry, SerwistGlobalConfig } from "serwist";
 import { NetworkFirst, Serwist } from "serwist";
+import { FIELD_PAGES_CACHE } from "../lib/offline/cache-names";
 
 declare global {
   interface WorkerGlobalScope extends SerwistGlobalConfig {
@@ -23,7 +24,7 @@ const serwist = new Serwist({
   runtimeCaching: [
     {
       matcher: ({ request, url, sameOrigin }) => sameOrigin && request.mode === "navigate" && fieldPage(url.pathname),
-      handler: new NetworkFirst({ cacheName: "turnstone-field-pages", networkTimeoutSeconds: 5, matchOptions: { ignoreSearch: true, ignoreVary: true } }),
+      handler: new NetworkFirst({ cacheName: FIELD_PAGES_CACHE, networkTimeoutSeconds: 5, matchOptions: { ignoreSearch: true, ignoreVary: true } }),
     },
     ...defaultCache,
   ],

@@ -2,12 +2,12 @@
 
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useEffect, useState } from "react";
+import { FIELD_PAGES_CACHE } from "@/lib/offline/cache-names";
 import { startSyncController } from "@/lib/offline/sync-controller";
 
 // Field routes a volunteer may open with no signal: stored once online in the cache the
-// service worker answers field navigations from (the name must match app/sw.ts).
+// service worker answers field navigations from.
 const fieldRoutes = ["/field", "/field/visit", "/field/records", "/safety"];
-export const FIELD_PAGES_CACHE = "turnstone-field-pages";
 
 /** Resolves once the page has loaded and the main thread has had a quiet moment. */
 function afterLoadAndIdle(): Promise<void> {
