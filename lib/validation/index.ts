@@ -1,5 +1,5 @@
 import type { z } from "zod";
-import type { FieldErrors } from "./errors";
+import type { FieldErrors } from "@/lib/errors";
 
 /** Flattens zod issues into { "field.path": ["message"] } for forms and JSON answers. */
 export function fieldErrorsOf(error: z.ZodError): FieldErrors {
