@@ -4,6 +4,7 @@ import { db } from "@/db/client";
 import { sightings, users, verificationEvents, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { myRecords, replyToQuestion } from "@/lib/queries/records";
+import { TEXT_PROBLEMS } from "@/lib/validation/text";
 import { resetToDemo } from "./support/db";
 
 const session = vi.hoisted(() => ({ userId: null as string | null }));
@@ -98,6 +99,23 @@ describe("a volunteer's own records and answers to questions", () => {
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.json.error.fields).sort()).toEqual(["message", "sightingId"]);
     expect(await db().select().from(verificationEvents).where(eq(verificationEvents.action, "reply"))).toHaveLength(0);
+  });
+
+  it("answers 400 with a field message for a reply carrying NUL or an unpaired surrogate, and stores nothing", async () => {
+    const sightingId = await queryOneOf(actor, "Which wing?");
+    for (const [message, problem] of [
+      ["Left wing\u0000", TEXT_PROBLEMS.control],
+      ["Left \uD83E wing", TEXT_PROBLEMS.brokenCharacter],
+      ["\uDD8B", TEXT_PROBLEMS.brokenCharacter],
+    ] as const) {
+      const refused = await reply({ sightingId, message });
+      expect(refused.status, JSON.stringify(message)).toBe(400);
+      expect(refused.json.error).toMatchObject({ code: "invalid", fields: { message: [problem] } });
+    }
+    expect(await db().select().from(verificationEvents).where(eq(verificationEvents.action, "reply"))).toHaveLength(0);
+    // Line breaks and characters outside the BMP are ordinary text.
+    const fine = await reply({ sightingId, message: "Left wing,\nphoto \u{1F98B} attached" });
+    expect(fine.status).toBe(201);
   });
 
   it("serves GET /api/field/records to the volunteer and 401 to strangers", async () => {
