@@ -1,8 +1,9 @@
 import { randomUUID } from "node:crypto";
-import { asc, count, eq, ne } from "drizzle-orm";
+import { asc, count, eq, inArray, ne } from "drizzle-orm";
 import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { db } from "@/db/client";
 import { sightings, species, transectAssignments, users, visits } from "@/db/schema";
+import { TEXT_PROBLEMS } from "@/lib/validation/text";
 import { resetToDemo } from "./support/db";
 
 // The handler's own session check is exercised for real; only Auth.js's cookie decoding is
@@ -91,5 +92,59 @@ describe("POST /api/field/sync", () => {
     expect(json.results.map((r: { status: string }) => r.status)).toEqual(["forbidden", "forbidden"]);
     const [after] = await db().select({ n: count() }).from(visits);
     expect(after!.n).toBe(before!.n);
+  });
+
+  it("answers 400 for items carrying NUL, an unpaired surrogate or year 0000, and still stores the good items beside them", async () => {
+    const good = batchFor(mine, speciesId);
+    const goodVisit = good.visits[0]!;
+    const goodSighting = good.sightings[0]!;
+    const sightingOn = (visitId: string, over: Record<string, unknown>) => ({ ...goodSighting, id: randomUUID(), visitId, ...over });
+    const nulVisit = { ...goodVisit, id: randomUUID(), notes: "Gate was locked\u0000" };
+    const brokenVisit = { ...goodVisit, id: randomUUID(), coRecorders: "A. Smith \uD83E" };
+    const yearZeroVisit = { ...goodVisit, id: randomUUID(), visitDate: "0000-01-01", clientUpdatedAt: "0000-01-01T00:00:00Z" };
+    const batch = {
+      visits: [nulVisit, goodVisit, brokenVisit, yearZeroVisit],
+      sightings: [
+        sightingOn(goodVisit.id, { note: "\u0000" }),
+        goodSighting,
+        sightingOn(goodVisit.id, { note: "\uDD8B on thistle" }),
+        sightingOn(goodVisit.id, { clientUpdatedAt: "0000-12-31T23:59:59Z" }),
+        sightingOn(nulVisit.id, {}),
+      ],
+    };
+    const body = JSON.stringify(batch);
+    // The wire really carries them, as JSON escapes.
+    expect(body).toContain("\\u0000");
+    expect(body).toContain("\\ud83e");
+
+    const { status, json } = await post(body);
+    expect(status).toBe(400);
+    const results = json.results as { kind: string; index: number; status: string; errors?: Record<string, string[]>; reason?: string }[];
+    expect(results.map((r) => [r.kind, r.index, r.status])).toEqual([
+      ["visit", 0, "invalid"],
+      ["visit", 1, "created"],
+      ["visit", 2, "invalid"],
+      ["visit", 3, "invalid"],
+      ["sighting", 0, "invalid"],
+      ["sighting", 1, "created"],
+      ["sighting", 2, "invalid"],
+      ["sighting", 3, "invalid"],
+      ["sighting", 4, "invalid"],
+    ]);
+    expect(results[0]!.errors).toEqual({ notes: [TEXT_PROBLEMS.control] });
+    expect(results[2]!.errors).toEqual({ coRecorders: [TEXT_PROBLEMS.brokenCharacter] });
+    expect(results[3]!.errors).toEqual({
+      visitDate: [expect.stringMatching(/^Must be a date between 1900-01-01 and \d{4}-\d\d-\d\d\.$/)],
+      clientUpdatedAt: ["Must be a time between 1900-01-01 and 2100-12-31."],
+    });
+    expect(results[4]!.errors).toEqual({ note: [TEXT_PROBLEMS.control] });
+    expect(results[6]!.errors).toEqual({ note: [TEXT_PROBLEMS.brokenCharacter] });
+    expect(results[7]!.errors).toEqual({ clientUpdatedAt: ["Must be a time between 1900-01-01 and 2100-12-31."] });
+    expect(results[8]).toMatchObject({ reason: "unknown visit", errors: { visitId: [expect.any(String)] } });
+
+    const storedVisits = await db().select({ id: visits.id }).from(visits).where(inArray(visits.id, batch.visits.map((v) => v.id)));
+    expect(storedVisits.map((v) => v.id)).toEqual([goodVisit.id]);
+    const storedSightings = await db().select().from(sightings).where(inArray(sightings.id, batch.sightings.map((s) => s.id)));
+    expect(storedSightings).toEqual([expect.objectContaining({ id: goodSighting.id, visitId: goodVisit.id, count: 2 })]);
   });
 });

@@ -165,6 +165,52 @@ describe("applying a sync batch from a volunteer's phone", () => {
     expect(await db().select().from(visits).where(eq(visits.id, bad.id))).toHaveLength(0);
   });
 
+  it("PostgreSQL itself refuses NUL, unpaired surrogates and year 0000 in the batch write, which is why the contract refuses them first", async () => {
+    const visit = visitOf(transect.id);
+    const row = { id: visit.id, transectId: transect.id, volunteerId: actor.id, seasonId: null, visitDate: "2026-05-14", startTime: "10:30:00", completeList: false, notes: null, clientUpdatedAt: new Date("2026-05-14T11:50:00Z") };
+    const writeOne = (over: Record<string, unknown>) => db().transaction((tx) => upsertVisits(tx, [{ ...row, ...over }]));
+    // PostgreSQL manual, 8.3 Character Types: "the character with code zero (sometimes called NUL) cannot be stored";
+    // 8.14 JSON Types: \u0000 and unpaired surrogate escapes cannot be turned into text.
+    await expect(writeOne({ notes: "locked\u0000" })).rejects.toThrow();
+    await expect(writeOne({ coRecorders: "half \uD83E" })).rejects.toThrow();
+    // PostgreSQL manual, 8.5 Date/Time Types: there is no year 0 (1 BC precedes AD 1).
+    await expect(writeOne({ visitDate: "0000-01-01" })).rejects.toThrow();
+    await expect(writeOne({ clientUpdatedAt: new Date("0000-06-01T00:00:00Z") })).rejects.toThrow();
+    expect(await db().select().from(visits).where(eq(visits.id, visit.id))).toHaveLength(0);
+    // The same row without them lands, so the refusals above were the values'.
+    await writeOne({});
+    expect(await db().select().from(visits).where(eq(visits.id, visit.id))).toHaveLength(1);
+  });
+
+  it("stores the extreme values the contract accepts exactly as sent", async () => {
+    const coRecorders = "Zoë Ærø, \u{1F98B} club";
+    const notes = "Line one\n\tline two\r\nCafé 30\u00a0°C";
+    const visit = visitOf(transect.id, {
+      visitDate: "1900-01-01",
+      startTime: "00:00",
+      endTime: "23:59:59",
+      temperatureC: -40,
+      windBeaufort: 12,
+      cloudCoverPercent: 100,
+      coRecorders,
+      notes,
+      submittedAt: "2100-12-31T23:59:59.999Z",
+      clientUpdatedAt: "2100-12-31T23:59:59.999Z",
+    });
+    const s = sightingOf(visit.id, speciesIds[0]!, {
+      count: 100_000, section: transect.sectionCount, latitude: -90, longitude: 180, accuracyMetres: 100_000,
+      note: "\u{1F98B}\u{1F98B} on the bramble", clientUpdatedAt: "1900-01-01T00:00:00Z",
+    });
+    const { status, response } = await applySyncBatch(actor, { visits: [visit], sightings: [s] });
+    expect(status).toBe(200);
+    expect(response.results.map((r) => r.status)).toEqual(["created", "created"]);
+    const [stored] = await db().select().from(visits).where(eq(visits.id, visit.id));
+    expect(stored).toMatchObject({ visitDate: "1900-01-01", startTime: "00:00:00", endTime: "23:59:59", coRecorders, notes });
+    expect(stored!.clientUpdatedAt!.toISOString()).toBe("2100-12-31T23:59:59.999Z");
+    expect(await storedSighting(s.id)).toMatchObject({ count: 100_000, latitude: -90, longitude: 180, accuracyMetres: 100_000, note: s.note });
+    expect((await storedSighting(s.id))!.clientUpdatedAt!.toISOString()).toBe("1900-01-01T00:00:00.000Z");
+  });
+
   it("refuses a malformed envelope as a whole with field messages", async () => {
     await expect(applySyncBatch(actor, { visits: "lots", sightings: Array(501).fill({}) })).rejects.toMatchObject({
       status: 400,
