@@ -1,11 +1,11 @@
 import "server-only";
 import { eq, sql } from "drizzle-orm";
 import { forbidden as forbiddenPage, redirect, unauthorized as unauthorizedPage } from "next/navigation";
-import { auth } from "@/auth";
 import { db } from "@/db/client";
 import { users } from "@/db/schema";
 import { forbidden, unauthorized } from "@/lib/errors";
 import type { Role } from "./roles";
+import { sessionUserId } from "./session";
 
 export type Actor = { id: string; role: Role; name: string; email: string };
 
@@ -28,18 +28,17 @@ function actorQuery() {
  * The signed-in person, re-read from the database on every request so a role change or a
  * deactivation takes effect at once rather than when the session cookie expires.
  */
-export async function currentActor(): Promise<Actor | null> {
-  const session = await auth();
-  const id = session?.user?.id;
+export async function currentActor(requestHeaders?: Headers): Promise<Actor | null> {
+  const id = await sessionUserId(requestHeaders);
   if (!id) return null;
   const [row] = await actorQuery().execute({ id });
   if (!row || !row.active) return null;
   return { id: row.id, role: row.role, name: row.name, email: row.email };
 }
 
-/** For route handlers and server actions: throws 401 / 403 AppErrors. */
-export async function requireActor(allowed?: readonly Role[]): Promise<Actor> {
-  const actor = await currentActor();
+/** For route handlers (pass the request's headers) and server actions: throws 401 / 403 AppErrors. */
+export async function requireActor(allowed?: readonly Role[], requestHeaders?: Headers): Promise<Actor> {
+  const actor = await currentActor(requestHeaders);
   if (!actor) throw unauthorized();
   if (allowed && !allowed.includes(actor.role)) throw forbidden();
   return actor;

@@ -47,7 +47,7 @@ export function route<B extends z.ZodType | undefined = undefined, Q extends z.Z
 ) {
   return async (request: Request, context: { params: Promise<P> }): Promise<Response> => {
     try {
-      const actor = await requireActor(options.roles);
+      const actor = await requireActor(options.roles, request.headers);
       let query = undefined as Infer<Q>;
       if (options.query) {
         const raw = Object.fromEntries(new URL(request.url).searchParams);

@@ -9,7 +9,7 @@ import { phoneJpeg, svgDrawing } from "../support/images";
 
 // The route handlers read the session through Auth.js; here a test decides who is signed in.
 const session = vi.hoisted(() => ({ userId: null as string | null }));
-vi.mock("@/auth", () => ({ auth: async () => (session.userId ? { user: { id: session.userId } } : null) }));
+vi.mock("@/lib/auth/session", () => ({ sessionUserId: async () => session.userId }));
 
 const { POST: requestTicket } = await import("@/app/(field)/api/field/photos/route");
 const { POST: complete } = await import("@/app/(field)/api/field/photos/[id]/complete/route");

@@ -8,7 +8,7 @@ import { TEXT_PROBLEMS } from "@/lib/validation/text";
 import { resetToDemo } from "./support/db";
 
 const session = vi.hoisted(() => ({ userId: null as string | null }));
-vi.mock("@/auth", () => ({ auth: async () => (session.userId ? { user: { id: session.userId } } : null) }));
+vi.mock("@/lib/auth/session", () => ({ sessionUserId: async () => session.userId }));
 
 const { GET } = await import("@/app/(field)/api/field/records/route");
 const { POST: REPLY } = await import("@/app/(field)/api/field/records/reply/route");

@@ -9,7 +9,7 @@ import { resetToDemo } from "./support/db";
 // The handler's own session check is exercised for real; only Auth.js's cookie decoding is
 // replaced, so no running app is needed.
 const session = vi.hoisted(() => ({ userId: null as string | null }));
-vi.mock("@/auth", () => ({ auth: async () => (session.userId ? { user: { id: session.userId } } : null) }));
+vi.mock("@/lib/auth/session", () => ({ sessionUserId: async () => session.userId }));
 
 const { POST } = await import("@/app/(field)/api/field/sync/route");
 
