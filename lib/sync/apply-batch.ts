@@ -1,5 +1,4 @@
 import "server-only";
-import { db, type Transaction } from "@/db/client";
 import type { Actor } from "@/lib/auth/guard";
 import { invalid } from "@/lib/errors";
 import { fieldErrorsOf } from "@/lib/validation";
@@ -13,6 +12,7 @@ import {
   type SyncResponse,
   type VisitPayload,
 } from "./contract";
+import { inBatchTransaction, type BatchTx } from "./batch-transaction";
 import { parseItems, type ParsedItems } from "./parse";
 import { loadServerState } from "./server-state";
 import { planSightings } from "./sightings";
@@ -38,17 +38,20 @@ const byIndex = (a: ItemResult, b: ItemResult) => a.index - b.index;
 
 type ParsedBatch = { visits: ParsedItems<VisitPayload>; sightings: ParsedItems<SightingPayload> };
 
-async function applyInTransaction(tx: Transaction, actor: Actor, batch: ParsedBatch): Promise<ItemResult[]> {
+async function applyInTransaction(tx: BatchTx, begun: Promise<unknown>, actor: Actor, batch: ParsedBatch): Promise<ItemResult[]> {
   const { visits: parsedVisits, sightings: parsedSightings } = batch;
   const visitItems = parsedVisits.valid.map((v) => v.value);
   const sightingItems = parsedSightings.valid.map((s) => s.value);
 
-  const state = await loadServerState(tx, actor, {
-    transectIds: [...new Set(visitItems.map((v) => v.transectId))],
-    visitIds: [...new Set([...visitItems.map((v) => v.id), ...sightingItems.map((s) => s.visitId)])],
-    sightingIds: sightingItems.map((s) => s.id),
-    speciesIds: [...new Set(sightingItems.filter((s) => !s.deleted).map((s) => s.speciesId))],
-  });
+  const [state] = await Promise.all([
+    loadServerState(tx, actor, {
+      transectIds: [...new Set(visitItems.map((v) => v.transectId))],
+      visitIds: [...new Set([...visitItems.map((v) => v.id), ...sightingItems.map((s) => s.visitId)])],
+      sightingIds: sightingItems.map((s) => s.id),
+      speciesIds: [...new Set(sightingItems.filter((s) => !s.deleted).map((s) => s.speciesId))],
+    }),
+    begun, // nothing is written unless the transaction really began
+  ]);
 
   const visitPlan = planVisits(actor, parsedVisits.valid, state);
   const standingOf = (visitId: string): VisitStanding => visitPlan.standings.get(visitId) ?? serverStanding(actor, visitId, state);
@@ -88,7 +91,7 @@ export async function applySyncBatch(actor: Actor, body: unknown): Promise<SyncO
   }
   for (let attempt = 1; ; attempt++) {
     try {
-      const results = await db().transaction((tx) => applyInTransaction(tx, actor, batch));
+      const results = await inBatchTransaction((tx, begun) => applyInTransaction(tx, begun, actor, batch));
       return { status: batchStatus(results), response: { results, serverTime: new Date().toISOString() } };
     } catch (error) {
       if (attempt >= MAX_ATTEMPTS || !isRetryable(error)) throw error;

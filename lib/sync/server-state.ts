@@ -1,6 +1,6 @@
 import "server-only";
 import { and, eq, getTableColumns, sql } from "drizzle-orm";
-import type { Transaction } from "@/db/client";
+import type { BatchTx } from "./batch-transaction";
 import { seasons, sightings, species, transectAssignments, transects, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { uuidArray } from "./sql-arrays";
@@ -31,7 +31,7 @@ const reviewedSightingOfVisit = sql<boolean>`exists (select 1 from ${sightings} 
  * prepared because drizzle otherwise has postgres-js describe every parameterised statement
  * first, an extra round trip per query; prepared, the statement is parsed once per connection.
  */
-export async function loadServerState(tx: Transaction, actor: Actor, keys: StateKeys): Promise<ServerState> {
+export async function loadServerState(tx: BatchTx, actor: Actor, keys: StateKeys): Promise<ServerState> {
   const none = Promise.resolve([] as never[]);
   const [assignedRows, visitRows, sightingRows, speciesRows, seasonRows] = await Promise.all([
     keys.transectIds.length

@@ -1,8 +1,9 @@
 import "server-only";
 import { sql } from "drizzle-orm";
-import type { Transaction } from "@/db/client";
+import type { BatchTx } from "./batch-transaction";
 import { sightings, visits } from "@/db/schema";
 import type { SightingRow } from "./sightings";
+import { executePrepared } from "./prepared";
 import { uuidArray } from "./sql-arrays";
 import type { VisitRow } from "./visits";
 
@@ -15,12 +16,12 @@ export class BatchRaced extends Error {
 }
 
 // Rows travel as one JSON parameter unpacked by json_to_recordset: the statement text is the
-// same for any batch size (prepared once per connection), and building it costs next to nothing,
+// same for any batch size (so it is prepared once per connection), and building it costs next to nothing,
 // where a generated multi-row VALUES list costs milliseconds per batch to assemble.
 // The upserts repeat the conflict rules in their WHERE clauses, so a row another transaction
 // created or reviewed after our read is left alone; the short count then triggers a retry.
 
-export async function upsertVisits(tx: Transaction, rows: VisitRow[]): Promise<void> {
+export async function upsertVisits(tx: BatchTx, rows: VisitRow[]): Promise<void> {
   if (!rows.length) return;
   const json = JSON.stringify(
     rows.map((v) => ({
@@ -30,7 +31,7 @@ export async function upsertVisits(tx: Transaction, rows: VisitRow[]): Promise<v
       notes: v.notes, submitted_at: v.submittedAt, client_updated_at: v.clientUpdatedAt,
     })),
   );
-  const written = await tx.execute<{ id: string }>(sql`
+  const written = await executePrepared<{ id: string }>(tx, sql`
     insert into ${visits} as cur (id, transect_id, volunteer_id, season_id, visit_date, start_time, end_time, temperature_c,
       wind_beaufort, cloud_cover_percent, sky, co_recorders, complete_list, notes, submitted_at, client_updated_at)
     select id, transect_id, volunteer_id, season_id, visit_date, start_time, end_time, temperature_c,
@@ -51,7 +52,7 @@ export async function upsertVisits(tx: Transaction, rows: VisitRow[]): Promise<v
   if (written.length !== rows.length) throw new BatchRaced("visits");
 }
 
-export async function upsertSightings(tx: Transaction, volunteerId: string, rows: SightingRow[]): Promise<void> {
+export async function upsertSightings(tx: BatchTx, volunteerId: string, rows: SightingRow[]): Promise<void> {
   if (!rows.length) return;
   const json = JSON.stringify(
     rows.map((s) => ({
@@ -59,7 +60,7 @@ export async function upsertSightings(tx: Transaction, volunteerId: string, rows
       longitude: s.longitude, accuracy_metres: s.accuracyMetres, note: s.note, client_updated_at: s.clientUpdatedAt,
     })),
   );
-  const written = await tx.execute<{ id: string }>(sql`
+  const written = await executePrepared<{ id: string }>(tx, sql`
     insert into ${sightings} as cur (id, visit_id, species_id, count, section, latitude, longitude, accuracy_metres, note, client_updated_at)
     select id, visit_id, species_id, count, section, latitude, longitude, accuracy_metres, note, client_updated_at
     from json_to_recordset(${json}::json) as r(id uuid, visit_id uuid, species_id uuid, count integer, section smallint,
@@ -75,9 +76,9 @@ export async function upsertSightings(tx: Transaction, volunteerId: string, rows
   if (written.length !== rows.length) throw new BatchRaced("sightings");
 }
 
-export async function deletePendingSightings(tx: Transaction, ids: string[]): Promise<void> {
+export async function deletePendingSightings(tx: BatchTx, ids: string[]): Promise<void> {
   if (!ids.length) return;
-  const gone = await tx.execute<{ id: string }>(sql`
+  const gone = await executePrepared<{ id: string }>(tx, sql`
     delete from ${sightings} where id = any(${uuidArray(ids)}) and status = 'pending' and reviewed_at is null returning id`);
   if (gone.length !== ids.length) throw new BatchRaced("deleted sightings");
 }

@@ -23,5 +23,6 @@ export const POST = route({ roles: ["volunteer"] }, async ({ actor, request }) =
   const body = await readBatch(request);
   if (body instanceof NextResponse) return body;
   const { status, response } = await applySyncBatch(actor, body);
-  return NextResponse.json(response, { status });
+  // no-transform: the answer is a short list of ids, not worth compressing on every sync.
+  return NextResponse.json(response, { status, headers: { "Cache-Control": "no-store, no-transform" } });
 });
