@@ -17,6 +17,6 @@ echo $! > "$DATA_DIR/worker.pid"
 log "Worker started (log: .data/worker.log)"
 log "Serving Turnstone on http://localhost:$PORT (stop with Ctrl+C or npm run stop)"
 trap 'stop_pidfile "$DATA_DIR/worker.pid" "the worker"' EXIT
-node_modules/.bin/next start -p "$PORT" &
+node scripts/serve.mjs -p "$PORT" &
 echo $! > "$DATA_DIR/app.pid"
 wait "$(cat "$DATA_DIR/app.pid")"

@@ -38,7 +38,7 @@ bash scripts/ensure-chromium.sh || log "Chromium is not available: browser suite
 recreate_database turnstone_test >/dev/null && node_modules/.bin/tsx scripts/migrate.ts >/dev/null && node_modules/.bin/tsx scripts/seed.ts
 unset NODE_ENV
 if npm run --silent build > "$RESULTS/build.log" 2>&1; then
-  node_modules/.bin/next start -p "$TEST_PORT" > "$RESULTS/app.log" 2>&1 &
+  node scripts/serve.mjs -p "$TEST_PORT" > "$RESULTS/app.log" 2>&1 &
   APP_PID=$!
   node scripts/wait-for-url.mjs "$APP_URL/api/health" 90 || { tail -30 "$RESULTS/app.log"; log "the app did not become healthy"; }
   node_modules/.bin/vitest run -c vitest.browser.config.ts --reporter=default --reporter=json --outputFile.json="$RESULTS/browser.json"
