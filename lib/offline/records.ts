@@ -93,6 +93,27 @@ export async function removePhoto(id: string): Promise<void> {
   await fieldDb().photos.delete(id);
 }
 
+/**
+ * Saves a sighting with the photos added and removed in its form, all or nothing: a failure
+ * half-way cannot leave a record without its photos for a second tap to store again.
+ */
+export async function saveSightingWithPhotos(
+  visitId: string,
+  sightingId: string | null,
+  fields: NewSighting,
+  photos: { add: Blob[]; remove: string[] },
+): Promise<string> {
+  const db = fieldDb();
+  return db.transaction("rw", db.visits, db.sightings, db.photos, async () => {
+    const id = sightingId ? (await updateSighting(sightingId, fields), sightingId) : await addSighting(visitId, fields);
+    for (const photoId of photos.remove) {
+      if ((await db.photos.get(photoId))?.sightingId === id) await removePhoto(photoId);
+    }
+    for (const blob of photos.add) await addPhoto(visitId, id, blob);
+    return id;
+  });
+}
+
 export async function deleteDraftVisit(visitId: string): Promise<void> {
   const db = fieldDb();
   await editableVisit(visitId);
@@ -121,4 +142,23 @@ export async function returnToDraft(visitId: string): Promise<void> {
   const visit = await fieldDb().visits.get(visitId);
   if (!visit || visit.outbox !== "needs-attention") throw new Error("Only a visit that needs attention can be reopened.");
   await fieldDb().visits.update(visitId, { phase: "draft", outbox: "on-phone" });
+}
+
+export type VisitOnPhone = { visit: LocalVisit; sightings: number; photos: number; photosWaiting: number };
+
+/**
+ * Visits with anything the server has not yet taken (drafts, waiting, sending, sent back, or
+ * photos still to upload), newest first.
+ */
+export async function visitsStillOnPhone(): Promise<VisitOnPhone[]> {
+  const db = fieldDb();
+  const [visits, sightings, photos] = await Promise.all([db.visits.toArray(), db.sightings.toArray(), db.photos.toArray()]);
+  const unsent = (item: { outbox: string }) => item.outbox !== "sent";
+  return visits
+    .filter((v) => unsent(v) || sightings.some((s) => s.visitId === v.id && unsent(s)) || photos.some((p) => p.visitId === v.id && unsent(p)))
+    .sort((a, b) => b.visitDate.localeCompare(a.visitDate) || b.startTime.localeCompare(a.startTime))
+    .map((visit) => {
+      const own = photos.filter((p) => p.visitId === visit.id);
+      return { visit, sightings: sightings.filter((s) => s.visitId === visit.id).length, photos: own.length, photosWaiting: own.filter(unsent).length };
+    });
 }

@@ -1,16 +1,21 @@
 "use client";
 
-import { useState } from "react";
+import { lazy, Suspense, useState } from "react";
 import { beaufortScale } from "@/lib/field/beaufort";
+import type { ConditionsRules } from "@/lib/field/conditions";
 import type { ChecklistEntry } from "@/lib/field/species-search";
 import { timeNow } from "@/lib/field/clock";
 import { fieldDb, type LocalSighting } from "@/lib/offline/db";
 import { deleteDraftVisit, deleteSighting, returnToDraft, submitVisit } from "@/lib/offline/records";
 import { syncNow } from "@/lib/offline/sync-controller";
 import { useLive } from "../use-live";
+import { ConfirmButton } from "./confirm-button";
 import { SightingForm } from "./sighting-form";
 
-type Transect = { id: string; code: string; name: string; sectionCount: number };
+// The details form carries the form and validation libraries: loaded only when a volunteer corrects a visit.
+const StartVisitForm = lazy(() => import("./start-visit-form").then((m) => ({ default: m.StartVisitForm })));
+
+type Transect = { id: string; code: string; name: string; sectionCount: number; coastal: boolean };
 
 export function RecordingScreen({
   visitId,
@@ -18,6 +23,7 @@ export function RecordingScreen({
   transects,
   checklist,
   seenByTransect,
+  rules,
 }: {
   visitId: string;
   /** From the address, so the heading renders on the server before the phone's store is read. */
@@ -25,6 +31,7 @@ export function RecordingScreen({
   transects: Transect[];
   checklist: ChecklistEntry[];
   seenByTransect: Record<string, string[]>;
+  rules: ConditionsRules;
 }) {
   const data = useLive(async () => {
     const db = fieldDb();
@@ -35,6 +42,7 @@ export function RecordingScreen({
   }, [visitId]);
   const [adding, setAdding] = useState(false);
   const [editing, setEditing] = useState<LocalSighting | null>(null);
+  const [editingDetails, setEditingDetails] = useState(false);
   const [finishing, setFinishing] = useState(false);
   const [endTime, setEndTime] = useState("");
   const [completeList, setCompleteList] = useState(false);
@@ -50,16 +58,48 @@ export function RecordingScreen({
       </div>
     );
   }
-  if (!data.visit) return <p className="card">This visit is not on this phone. <a className="font-bold text-tideline-700" href="/field">Back to my transects</a></p>;
+  if (!data.visit) {
+    return (
+      <div className="card space-y-3">
+        <p>This visit is not on this phone.</p>
+        <a className="btn-quiet min-w-tap w-full" href="/field">Back to my transects</a>
+      </div>
+    );
+  }
   const { visit, sightings, photos } = data;
   const transect = transects.find((t) => t.id === visit.transectId);
   const speciesName = (id: string) => checklist.find((s) => s.id === id)?.vernacularName ?? "Unknown species";
   const draft = visit.phase === "draft";
+  const busy = adding || editing !== null || editingDetails || finishing;
+
+  const reopen = async () => {
+    setError(null);
+    try {
+      await returnToDraft(visitId);
+      setEditingDetails(true);
+    } catch (e) {
+      setError(e instanceof Error ? e.message : "The visit could not be reopened.");
+    }
+  };
+
+  const startFinishing = () => {
+    // A visit sent back by the server keeps what the volunteer entered last time.
+    setEndTime(visit.endTime ?? timeNow());
+    setCompleteList(visit.completeList);
+    setNotes(visit.notes ?? "");
+    setError(null);
+    setFinishing(true);
+  };
 
   const submit = async () => {
     setError(null);
+    const beyond = transect ? sightings.filter((s) => s.section != null && s.section > transect.sectionCount) : [];
+    if (beyond.length > 0) {
+      return setError(`${transect!.code} has ${transect!.sectionCount} sections: change the section of ${beyond.map((s) => speciesName(s.speciesId)).join(", ")} first.`);
+    }
     try {
       await submitVisit(visitId, { endTime: endTime || timeNow(), completeList, notes: notes.trim() || null });
+      setFinishing(false);
       void syncNow();
     } catch (e) {
       setError(e instanceof Error ? e.message : "Could not submit the visit.");
@@ -74,8 +114,16 @@ export function RecordingScreen({
           {visit.visitDate} from {visit.startTime}
           {visit.temperatureC != null && ` · ${visit.temperatureC} °C`}
           {visit.windBeaufort != null && ` · wind ${visit.windBeaufort} (${beaufortScale[visit.windBeaufort]?.name})`}
+          {visit.coRecorders && ` · with ${visit.coRecorders}`}
         </p>
+        {draft && !busy && (
+          <button type="button" className="btn-quiet mt-2 min-w-tap" onClick={() => setEditingDetails(true)}>
+            Change visit details
+          </button>
+        )}
       </div>
+
+      {error && !finishing && <p role="alert" className="font-bold text-rust-700">{error}</p>}
 
       {!draft && (
         <div className="card" role="status" data-testid="visit-submitted">
@@ -84,13 +132,38 @@ export function RecordingScreen({
           ) : visit.outbox === "needs-attention" ? (
             <>
               <p className="font-bold text-rust-700">Needs attention: {visit.attention}</p>
-              <button type="button" className="btn-quiet mt-2" onClick={() => void returnToDraft(visitId)}>Correct it</button>
+              <button type="button" className="btn-quiet mt-2 min-w-tap" onClick={() => void reopen()}>Correct it</button>
             </>
           ) : (
             <p><strong>In your outbox.</strong> It will be sent when there is signal.</p>
           )}
-          <a href="/field" className="btn-primary mt-3 w-full">Back to my transects</a>
+          <a href="/field" className="btn-primary mt-3 min-w-tap w-full">Back to my transects</a>
         </div>
+      )}
+
+      {draft && visit.attention && (
+        <p className="rounded-lg border border-rust-700 bg-rust-100 p-3 text-rust-700" data-testid="visit-attention">
+          <strong>The server sent this visit back:</strong> {visit.attention} Correct it, then submit it again.
+        </p>
+      )}
+
+      {draft && editingDetails && (
+        <section className="card" aria-label="Visit details">
+          <Suspense fallback={<p>Loading…</p>}>
+            <StartVisitForm
+              transects={transects}
+              transectId={visit.transectId}
+              rules={rules}
+              visit={visit}
+              onCancel={() => setEditingDetails(false)}
+              onSaved={(id, transectId) => {
+                // A reload must open the walk under its (possibly new) transect.
+                window.history.replaceState(null, "", `/field/visit?id=${id}&transect=${transectId}`);
+                setEditingDetails(false);
+              }}
+            />
+          </Suspense>
+        </section>
       )}
 
       <section aria-labelledby="sightings-heading">
@@ -98,10 +171,11 @@ export function RecordingScreen({
         <ul className="mt-2 space-y-2" data-testid="sighting-list">
           {sightings.map((s) => {
             const n = photos.filter((p) => p.sightingId === s.id).length;
+            const name = speciesName(s.speciesId);
             return (
-              <li key={s.id} className="card flex items-center justify-between gap-2" data-testid="sighting-row">
+              <li key={s.id} className="card flex flex-wrap items-center justify-between gap-2" data-testid="sighting-row">
                 <div>
-                  <p className="font-bold">{speciesName(s.speciesId)} × {s.count}</p>
+                  <p className="font-bold">{name} × {s.count}</p>
                   <p className="text-sm text-shingle-600">
                     {s.section ? `Section ${s.section}` : "No section"}
                     {n > 0 && ` · ${n} photo${n > 1 ? "s" : ""}`}
@@ -109,10 +183,19 @@ export function RecordingScreen({
                     {s.attention && <span className="text-rust-700"> · {s.attention}</span>}
                   </p>
                 </div>
-                {draft && (
-                  <div className="flex gap-1">
-                    <button type="button" className="btn-quiet" onClick={() => { setEditing(s); setAdding(false); }} aria-label={`Change ${speciesName(s.speciesId)}`}>Change</button>
-                    <button type="button" className="btn-quiet" onClick={() => void deleteSighting(s.id)} aria-label={`Delete ${speciesName(s.speciesId)}`}>Delete</button>
+                {draft && !editingDetails && (
+                  <div className="flex flex-wrap gap-1">
+                    <button type="button" className="btn-quiet min-w-tap" onClick={() => { setEditing(s); setAdding(false); }} aria-label={`Change ${name}`}>Change</button>
+                    <ConfirmButton
+                      label="Delete"
+                      ariaLabel={`Delete ${name}`}
+                      question={`Delete ${name} × ${s.count}${n > 0 ? ` and its ${n} photo${n > 1 ? "s" : ""}` : ""} from this walk?`}
+                      confirmLabel="Yes, delete it"
+                      onConfirm={async () => {
+                        if (editing?.id === s.id) setEditing(null);
+                        await deleteSighting(s.id);
+                      }}
+                    />
                   </div>
                 )}
               </li>
@@ -132,10 +215,10 @@ export function RecordingScreen({
           onDone={() => { setAdding(false); setEditing(null); }}
         />
       )}
-      {draft && !adding && !editing && !finishing && (
+      {draft && !busy && (
         <div className="grid gap-2">
-          <button type="button" className="btn-primary h-16 text-lg" onClick={() => setAdding(true)}>+ Add a sighting</button>
-          <button type="button" className="btn-quiet" onClick={() => { setFinishing(true); setEndTime(timeNow()); }}>Finish the walk</button>
+          <button type="button" className="btn-primary h-16 min-w-tap text-lg" onClick={() => setAdding(true)}>+ Add a sighting</button>
+          <button type="button" className="btn-quiet min-w-tap" onClick={startFinishing}>Finish the walk</button>
         </div>
       )}
 
@@ -163,22 +246,23 @@ export function RecordingScreen({
             Review: {sightings.length} sighting{sightings.length === 1 ? "" : "s"}, {photos.length} photo{photos.length === 1 ? "" : "s"}, {completeList ? "complete list" : "not a complete list"}.
           </p>
           <div className="grid grid-cols-2 gap-2">
-            <button type="button" className="btn-quiet" onClick={() => setFinishing(false)}>Back</button>
-            <button type="button" className="btn-primary" onClick={() => void submit()}>Submit visit</button>
+            <button type="button" className="btn-quiet min-w-tap" onClick={() => setFinishing(false)}>Back</button>
+            <button type="button" className="btn-primary min-w-tap" onClick={() => void submit()}>Submit visit</button>
           </div>
         </section>
       )}
 
-      {draft && (
-        <button
-          type="button"
-          className="text-sm text-rust-700 underline"
-          onClick={() => {
-            if (window.confirm("Delete this walk and everything recorded in it?")) void deleteDraftVisit(visitId).then(() => window.location.assign("/field"));
+      {draft && !busy && (
+        <ConfirmButton
+          label="Delete this walk"
+          question={`Delete this walk with its ${sightings.length} sighting${sightings.length === 1 ? "" : "s"} and ${photos.length} photo${photos.length === 1 ? "" : "s"}? It has not been sent, so it cannot be brought back.`}
+          confirmLabel="Yes, delete the walk"
+          className="btn min-w-tap px-3 text-rust-700 underline"
+          onConfirm={async () => {
+            await deleteDraftVisit(visitId);
+            window.location.assign("/field");
           }}
-        >
-          Delete this walk
-        </button>
+        />
       )}
     </div>
   );

@@ -1,10 +1,12 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { useMemo, useRef, useState } from "react";
 import { searchSpecies, type ChecklistEntry } from "@/lib/field/species-search";
-import type { LocalSighting } from "@/lib/offline/db";
-import { addPhoto, addSighting, updateSighting } from "@/lib/offline/records";
+import { fieldDb, type LocalSighting } from "@/lib/offline/db";
+import { saveSightingWithPhotos } from "@/lib/offline/records";
 import { Stepper } from "../stepper";
+import { useLive } from "../use-live";
+import { PhotoThumbnail } from "./photo-thumbnail";
 
 type Position = { latitude: number; longitude: number; accuracyMetres: number };
 
@@ -32,8 +34,17 @@ export function SightingForm({
     editing?.latitude != null && editing.longitude != null ? { latitude: editing.latitude, longitude: editing.longitude, accuracyMetres: editing.accuracyMetres ?? 0 } : null,
   );
   const [locating, setLocating] = useState(false);
-  const [files, setFiles] = useState<File[]>([]);
+  // Photos chosen in this form, kept only when the record is saved.
+  const [files, setFiles] = useState<{ key: number; file: File }[]>([]);
+  const nextFileKey = useRef(0);
+  // Stored photos the volunteer removed here; they go only when the record is saved, so Cancel undoes it.
+  const [removedIds, setRemovedIds] = useState<string[]>([]);
   const [error, setError] = useState<string | null>(null);
+  const [saving, setSaving] = useState(false);
+  // A ref, not only state: two taps can land before React re-renders the disabled button.
+  const savingRef = useRef(false);
+  const stored = useLive(async () => (editing ? fieldDb().photos.where("sightingId").equals(editing.id).sortBy("createdAt") : []), [editing?.id]);
+  const storedPhotos = (stored ?? []).filter((p) => !removedIds.includes(p.id));
   const matches = useMemo(() => searchSpecies(checklist, query, seenHere, 8), [checklist, query, seenHere]);
   const chosen = checklist.find((s) => s.id === speciesId);
 
@@ -54,6 +65,7 @@ export function SightingForm({
   };
 
   const save = async () => {
+    if (savingRef.current) return;
     if (!speciesId) return setError("Choose a species first.");
     const fields = {
       speciesId,
@@ -64,14 +76,20 @@ export function SightingForm({
       longitude: position?.longitude ?? null,
       accuracyMetres: position?.accuracyMetres ?? null,
     };
+    savingRef.current = true;
+    setSaving(true);
     try {
-      const id = editing ? (await updateSighting(editing.id, fields), editing.id) : await addSighting(visitId, fields);
-      for (const file of files) await addPhoto(visitId, id, file);
+      await saveSightingWithPhotos(visitId, editing?.id ?? null, fields, { add: files.map((f) => f.file), remove: removedIds });
       onDone();
     } catch (e) {
       setError(e instanceof Error ? e.message : "Could not save the record.");
+    } finally {
+      savingRef.current = false;
+      setSaving(false);
     }
   };
+
+  const photoCount = storedPhotos.length + files.length;
 
   return (
     <section aria-labelledby="sighting-form-heading" className="card space-y-4 border-2 border-tideline-600">
@@ -82,7 +100,7 @@ export function SightingForm({
           <p>
             <strong data-testid="chosen-species">{chosen.vernacularName}</strong> <i className="text-shingle-600">{chosen.scientificName}</i>
           </p>
-          <button type="button" className="btn-quiet" onClick={() => setSpeciesId(null)}>Change</button>
+          <button type="button" className="btn-quiet min-w-tap" onClick={() => setSpeciesId(null)}>Change</button>
         </div>
       ) : (
         <div>
@@ -91,7 +109,7 @@ export function SightingForm({
           <ul className="mt-2 space-y-1" aria-label="Matching species">
             {matches.map((s) => (
               <li key={s.id}>
-                <button type="button" className="btn-quiet w-full justify-start text-left" onClick={() => { setSpeciesId(s.id); setQuery(""); setError(null); }}>
+                <button type="button" className="btn-quiet min-w-tap w-full justify-start text-left" onClick={() => { setSpeciesId(s.id); setQuery(""); setError(null); }}>
                   <span>
                     {s.vernacularName} <i className="font-normal text-shingle-600">{s.scientificName}</i>
                     {seenHere.includes(s.id) && <span className="ml-2 rounded bg-lichen-100 px-1 text-xs text-lichen-700">seen here before</span>}
@@ -120,22 +138,46 @@ export function SightingForm({
         <textarea id="sighting-note" rows={2} maxLength={1000} className="field-input" value={note} onChange={(e) => setNote(e.target.value)} />
       </div>
       <div className="flex flex-wrap items-center gap-2">
-        <button type="button" className="btn-quiet" onClick={locate} disabled={locating}>{locating ? "Finding position…" : position ? "Update position" : "Add my position"}</button>
+        <button type="button" className="btn-quiet min-w-tap" onClick={locate} disabled={locating}>{locating ? "Finding position…" : position ? "Update position" : "Add my position"}</button>
         {position && (
-          <span className="text-sm">
-            {position.latitude.toFixed(5)}, {position.longitude.toFixed(5)} (±{position.accuracyMetres} m){" "}
-            <button type="button" className="underline" onClick={() => setPosition(null)}>remove</button>
+          <span className="flex items-center gap-2 text-sm">
+            {position.latitude.toFixed(5)}, {position.longitude.toFixed(5)} (±{position.accuracyMetres} m)
+            <button type="button" className="btn-quiet min-w-tap px-3 text-sm" onClick={() => setPosition(null)} aria-label="Remove the position">Remove</button>
           </span>
         )}
       </div>
       <div>
         <label htmlFor="sighting-photos" className="field-label">Photos (optional)</label>
-        <input id="sighting-photos" type="file" accept="image/jpeg,image/png,image/webp,image/heic,image/heif" multiple className="field-input" onChange={(e) => setFiles(Array.from(e.target.files ?? []))} />
-        {files.length > 0 && <p className="text-sm">{files.length} photo{files.length > 1 ? "s" : ""} will be kept with this record.</p>}
+        <input
+          id="sighting-photos"
+          type="file"
+          accept="image/jpeg,image/png,image/webp,image/heic,image/heif"
+          multiple
+          className="field-input"
+          onChange={(e) => {
+            const chosen = Array.from(e.target.files ?? []);
+            setFiles((kept) => [...kept, ...chosen.map((file) => ({ key: nextFileKey.current++, file }))]);
+            // Cleared so the same picture can be chosen again after removing it.
+            e.target.value = "";
+          }}
+        />
+        {photoCount > 0 && (
+          <>
+            <p className="mt-1 text-sm">{photoCount} photo{photoCount > 1 ? "s" : ""} with this record{files.length + removedIds.length > 0 ? ": changes are kept when you save" : ""}.</p>
+            <ul className="mt-2 flex flex-wrap gap-3" aria-label="Photos with this record">
+              {storedPhotos.map((p, i) => (
+                <PhotoThumbnail key={p.id} blob={p.blob} label={`Photo ${i + 1}`} onRemove={() => setRemovedIds((ids) => [...ids, p.id])} />
+              ))}
+              {files.map(({ key, file }, i) => (
+                <PhotoThumbnail key={key} blob={file} label={`Photo ${storedPhotos.length + i + 1} (new)`} onRemove={() => setFiles((kept) => kept.filter((k) => k.key !== key))} />
+              ))}
+            </ul>
+          </>
+        )}
       </div>
       <div className="grid grid-cols-2 gap-2">
-        <button type="button" className="btn-quiet" onClick={onDone}>Cancel</button>
-        <button type="button" className="btn-primary" onClick={() => void save()}>Save record</button>
+        <button type="button" className="btn-quiet min-w-tap" onClick={onDone} disabled={saving}>Cancel</button>
+        <button type="button" className="btn-primary min-w-tap" onClick={() => void save()} disabled={saving} aria-busy={saving}>{saving ? "Saving…" : "Save record"}</button>
       </div>
     </section>
   );

@@ -1,19 +1,58 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { beaufortScale } from "@/lib/field/beaufort";
 import { conditionWarnings, type ConditionsRules } from "@/lib/field/conditions";
 import { skyLabel, startVisitSchema, timeNow, todayLocal, type StartVisitInput, type StartVisitValues } from "@/lib/field/visit-form";
-import { createVisit } from "@/lib/offline/records";
+import type { LocalVisit } from "@/lib/offline/db";
+import { createVisit, updateVisit } from "@/lib/offline/records";
 import { skyValues } from "@/lib/sync/protocol";
 
 type Transect = { id: string; code: string; name: string; coastal: boolean };
 
-export function StartVisitForm({ transects, transectId, rules, onStarted }: { transects: Transect[]; transectId: string; rules: ConditionsRules; onStarted: (visitId: string, transectId: string) => void }) {
+const asText = (n: number | null) => (n == null ? "" : String(n));
+
+/** The form's starting values: today and now for a new walk, or the saved visit's own. */
+function startingValues(transects: Transect[], transectId: string, visit?: LocalVisit) {
+  if (!visit) return { transectId, visitDate: todayLocal(), startTime: timeNow(), temperatureC: "", windBeaufort: "", cloudCoverPercent: "", sky: "", coRecorders: "" };
+  return {
+    // A transect no longer assigned cannot be kept: the volunteer must choose one of theirs.
+    transectId: transects.some((t) => t.id === visit.transectId) ? visit.transectId : "",
+    visitDate: visit.visitDate,
+    startTime: visit.startTime,
+    temperatureC: asText(visit.temperatureC),
+    windBeaufort: asText(visit.windBeaufort),
+    cloudCoverPercent: asText(visit.cloudCoverPercent),
+    sky: visit.sky ?? "",
+    coRecorders: visit.coRecorders ?? "",
+  };
+}
+
+/**
+ * Starts a visit, or with `visit` corrects one already on the phone (a draft, or one the server
+ * sent back): every field of the start of the walk can be changed.
+ */
+export function StartVisitForm({
+  transects,
+  transectId,
+  rules,
+  visit,
+  onSaved,
+  onCancel,
+}: {
+  transects: Transect[];
+  transectId: string;
+  rules: ConditionsRules;
+  visit?: LocalVisit;
+  onSaved: (visitId: string, transectId: string) => void;
+  onCancel?: () => void;
+}) {
+  const [saveError, setSaveError] = useState<string | null>(null);
   const { register, handleSubmit, control, formState: { errors, isSubmitting } } = useForm<StartVisitInput, unknown, StartVisitValues>({
     resolver: zodResolver(startVisitSchema),
-    defaultValues: { transectId, visitDate: todayLocal(), startTime: timeNow(), temperatureC: "", windBeaufort: "", cloudCoverPercent: "", sky: "", coRecorders: "" } as unknown as StartVisitInput,
+    defaultValues: startingValues(transects, transectId, visit) as unknown as StartVisitInput,
   });
   const watched = useWatch({ control });
   const warnings = conditionWarnings(rules, {
@@ -24,7 +63,8 @@ export function StartVisitForm({ transects, transectId, rules, onStarted }: { tr
   const chosen = transects.find((t) => t.id === watched.transectId);
 
   const onSubmit = handleSubmit(async (values) => {
-    const id = await createVisit({
+    setSaveError(null);
+    const fields = {
       transectId: values.transectId,
       visitDate: values.visitDate,
       startTime: values.startTime,
@@ -33,18 +73,26 @@ export function StartVisitForm({ transects, transectId, rules, onStarted }: { tr
       cloudCoverPercent: values.cloudCoverPercent,
       sky: values.sky,
       coRecorders: values.coRecorders,
-    });
-    onStarted(id, values.transectId);
+    };
+    try {
+      if (visit && visit.endTime && visit.endTime < values.startTime) throw new Error(`The walk ended at ${visit.endTime}: the start time must be before that.`);
+      const id = visit ? (await updateVisit(visit.id, fields), visit.id) : await createVisit(fields);
+      onSaved(id, values.transectId);
+    } catch (e) {
+      setSaveError(e instanceof Error ? e.message : "The visit could not be saved on this phone.");
+    }
   });
 
   const err = (name: keyof StartVisitInput) => errors[name] && <p className="field-error" id={`${name}-error`}>{String(errors[name]?.message)}</p>;
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      <h1 className="text-2xl font-bold text-tideline-800">Start a visit</h1>
+      {visit ? <h2 className="text-xl font-bold text-tideline-800">Correct the visit details</h2> : <h1 className="text-2xl font-bold text-tideline-800">Start a visit</h1>}
+      {saveError && <p role="alert" className="font-bold text-rust-700">{saveError}</p>}
       <div>
         <label htmlFor="transectId" className="field-label">Transect</label>
         <select id="transectId" className="field-input" {...register("transectId")}>
+          {visit && !transects.some((t) => t.id === visit.transectId) && <option value="">Choose one of your transects</option>}
           {transects.map((t) => (
             <option key={t.id} value={t.id}>{t.code} {t.name}</option>
           ))}
@@ -110,7 +158,14 @@ export function StartVisitForm({ transects, transectId, rules, onStarted }: { tr
         <input id="coRecorders" className="field-input" placeholder="Names of co-recorders" {...register("coRecorders")} />
         {err("coRecorders")}
       </div>
-      <button type="submit" className="btn-primary w-full" disabled={isSubmitting}>Start recording</button>
+      {visit ? (
+        <div className="grid grid-cols-2 gap-2">
+          <button type="button" className="btn-quiet min-w-tap" onClick={onCancel} disabled={isSubmitting}>Back</button>
+          <button type="submit" className="btn-primary min-w-tap" disabled={isSubmitting}>Save details</button>
+        </div>
+      ) : (
+        <button type="submit" className="btn-primary min-w-tap w-full" disabled={isSubmitting}>Start recording</button>
+      )}
     </form>
   );
 }

@@ -23,17 +23,17 @@ export function VisitScreen({ initial }: { initial?: FieldReference }) {
   if (!data) return <p>Loading…</p>;
 
   if (visitId) {
-    return <RecordingScreen visitId={visitId} transectHint={params.get("transect")} transects={data.transects} checklist={data.checklist} seenByTransect={data.seenByTransect} />;
+    return <RecordingScreen visitId={visitId} transectHint={params.get("transect")} transects={data.transects} checklist={data.checklist} seenByTransect={data.seenByTransect} rules={data.rules} />;
   }
   const transectId = params.get("transect") ?? data.transects[0]?.id;
-  if (!transectId) return <p className="card">You have no transects to record on yet.</p>;
+  if (!transectId) return <p className="card">You have no transects to record on yet. Your network organiser assigns them.</p>;
   return (
     <SafetyGate>
       <StartVisitForm
         transects={data.transects}
         transectId={transectId}
         rules={data.rules}
-        onStarted={(id, startedOn) => {
+        onSaved={(id, startedOn) => {
           // Stay on this page (no request needed offline) but make a reload reopen the visit.
           window.history.replaceState(null, "", visitHref(id, startedOn));
           setVisitId(id);

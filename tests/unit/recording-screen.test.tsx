@@ -1,0 +1,143 @@
+import "fake-indexeddb/auto"; // before dexie loads, so it finds an IndexedDB
+import { fireEvent, render, screen, waitFor, within } from "@testing-library/react";
+import { beforeEach, describe, expect, it, vi } from "vitest";
+import { RecordingScreen } from "@/components/field/visit/recording-screen";
+import { fieldDb } from "@/lib/offline/db";
+import { addSighting, createVisit, submitVisit } from "@/lib/offline/records";
+import { fieldReference, freshFieldDb, meadowBrown, smallWhite, transectA, transectB } from "./field-fixtures";
+
+// The outbox is another part's job; here it only has to be asked to run.
+const syncNow = vi.hoisted(() => vi.fn());
+vi.mock("@/lib/offline/sync-controller", () => ({ syncNow }));
+
+const reference = fieldReference();
+
+async function visitWithSightings() {
+  const visitId = await createVisit({ transectId: transectA, visitDate: "2026-07-02", startTime: "10:30", temperatureC: 18, windBeaufort: 2, cloudCoverPercent: 40, sky: "broken_cloud", coRecorders: null });
+  await addSighting(visitId, { speciesId: meadowBrown, count: 3, section: 1, latitude: null, longitude: null, accuracyMetres: null, note: null });
+  await addSighting(visitId, { speciesId: smallWhite, count: 1, section: 6, latitude: null, longitude: null, accuracyMetres: null, note: null });
+  return visitId;
+}
+
+function renderScreen(visitId: string) {
+  return render(
+    <RecordingScreen visitId={visitId} transectHint={null} transects={reference.transects} checklist={reference.checklist} seenByTransect={{}} rules={reference.rules} />,
+  );
+}
+
+describe("recording screen", () => {
+  beforeEach(() => {
+    freshFieldDb();
+    syncNow.mockClear();
+  });
+
+  it("asks before deleting a sighting, and keeps it when the volunteer says so", async () => {
+    const visitId = await visitWithSightings();
+    renderScreen(visitId);
+    await screen.findByRole("button", { name: "Delete Meadow Brown" });
+    fireEvent.click(screen.getByRole("button", { name: "Delete Meadow Brown" }));
+    const question = screen.getByRole("alertdialog");
+    expect(question).toHaveTextContent("Delete Meadow Brown × 3 from this walk?");
+    expect(await fieldDb().sightings.count()).toBe(2);
+    fireEvent.click(within(question).getByRole("button", { name: "Keep it" }));
+    expect(screen.queryByRole("alertdialog")).toBeNull();
+    expect(await fieldDb().sightings.count()).toBe(2);
+
+    fireEvent.click(screen.getByRole("button", { name: "Delete Meadow Brown" }));
+    fireEvent.click(within(screen.getByRole("alertdialog")).getByRole("button", { name: "Yes, delete it" }));
+    await waitFor(() => expect(screen.getAllByTestId("sighting-row")).toHaveLength(1));
+    expect((await fieldDb().sightings.toArray()).map((s) => s.speciesId)).toEqual([smallWhite]);
+  });
+
+  it("asks before deleting the whole walk", async () => {
+    const visitId = await visitWithSightings();
+    renderScreen(visitId);
+    fireEvent.click(await screen.findByRole("button", { name: "Delete this walk" }));
+    expect(screen.getByRole("alertdialog")).toHaveTextContent("Delete this walk with its 2 sightings and 0 photos?");
+    expect(await fieldDb().visits.count()).toBe(1);
+    fireEvent.click(screen.getByRole("button", { name: "Keep it" }));
+    expect(await fieldDb().visits.count()).toBe(1);
+    // Confirming deletes it (jsdom cannot follow the page change that comes after; the store is what matters).
+    fireEvent.click(screen.getByRole("button", { name: "Delete this walk" }));
+    fireEvent.click(screen.getByRole("button", { name: "Yes, delete the walk" }));
+    await waitFor(async () => expect(await fieldDb().visits.count()).toBe(0));
+    expect(await fieldDb().sightings.count()).toBe(0);
+  });
+
+  it("lets a visit the server sent back be corrected in every field and submitted again", async () => {
+    const visitId = await visitWithSightings();
+    await submitVisit(visitId, { endTime: "11:45", completeList: true, notes: "Breezy on the ridge" });
+    await fieldDb().visits.update(visitId, { outbox: "needs-attention", attention: "The visit date is outside the season." });
+    renderScreen(visitId);
+
+    fireEvent.click(await screen.findByRole("button", { name: "Correct it" }));
+    // The start-of-visit form opens with the visit's own values.
+    const form = await screen.findByRole("region", { name: "Visit details" });
+    await within(form).findByLabelText("Date", {}, { timeout: 5000 }); // the form is loaded on demand
+    expect(within(form).getByLabelText("Date")).toHaveValue("2026-07-02");
+    expect(within(form).getByLabelText("Start time")).toHaveValue("10:30");
+    expect(within(form).getByLabelText("Temperature (°C)")).toHaveValue(18);
+    expect(within(form).getByLabelText("Sun and cloud")).toHaveValue("broken_cloud");
+    expect(screen.getByTestId("visit-attention")).toHaveTextContent("outside the season");
+
+    // Only the volunteer's own (assigned) transects are offered.
+    const transect = within(form).getByLabelText("Transect");
+    expect(within(transect).getAllByRole("option").map((o) => o.getAttribute("value"))).toEqual([transectA, transectB]);
+    fireEvent.change(transect, { target: { value: transectB } });
+    fireEvent.change(within(form).getByLabelText("Date"), { target: { value: "2026-07-03" } });
+    fireEvent.change(within(form).getByLabelText("Start time"), { target: { value: "09:15" } });
+    fireEvent.change(within(form).getByLabelText("Temperature (°C)"), { target: { value: "21.5" } });
+    fireEvent.change(within(form).getByLabelText("Wind (Beaufort force)"), { target: { value: "3" } });
+    fireEvent.change(within(form).getByLabelText("Cloud cover (%)"), { target: { value: "10" } });
+    fireEvent.change(within(form).getByLabelText("Sun and cloud"), { target: { value: "mostly_sunny" } });
+    fireEvent.change(within(form).getByLabelText("Walking with (optional)"), { target: { value: "R. Okafor" } });
+    fireEvent.click(within(form).getByRole("button", { name: "Save details" }));
+    await waitFor(() => expect(screen.queryByRole("region", { name: "Visit details" })).toBeNull());
+
+    const corrected = (await fieldDb().visits.get(visitId))!;
+    expect(corrected).toMatchObject({
+      phase: "draft",
+      transectId: transectB,
+      visitDate: "2026-07-03",
+      startTime: "09:15",
+      temperatureC: 21.5,
+      windBeaufort: 3,
+      cloudCoverPercent: 10,
+      sky: "mostly_sunny",
+      coRecorders: "R. Okafor",
+    });
+    expect(window.location.search).toBe(`?id=${visitId}&transect=${transectB}`);
+
+    // Finishing keeps what was entered last time.
+    fireEvent.click(screen.getByRole("button", { name: "Finish the walk" }));
+    expect(screen.getByLabelText("End time")).toHaveValue("11:45");
+    expect(screen.getByLabelText(/I recorded every species/)).toBeChecked();
+    expect(screen.getByLabelText("Notes (optional)")).toHaveValue("Breezy on the ridge");
+
+    // DUN-02 has 4 sections: the Small White in section 6 must be changed before it can go.
+    fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
+    expect(await screen.findByRole("alert")).toHaveTextContent("DUN-02 has 4 sections: change the section of Small White first.");
+    expect((await fieldDb().visits.get(visitId))!.phase).toBe("draft");
+    const white = (await fieldDb().sightings.toArray()).find((s) => s.speciesId === smallWhite)!;
+    await fieldDb().sightings.update(white.id, { section: 2 });
+    await screen.findByText(/^Section 2/);
+    fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
+    await screen.findByTestId("visit-submitted");
+    expect(await fieldDb().visits.get(visitId)).toMatchObject({ phase: "submitted", outbox: "on-phone", attention: null, transectId: transectB, endTime: "11:45" });
+    expect(syncNow).toHaveBeenCalled();
+  });
+
+  it("refuses a corrected start time after the recorded end time", async () => {
+    const visitId = await visitWithSightings();
+    await submitVisit(visitId, { endTime: "11:45", completeList: false, notes: null });
+    await fieldDb().visits.update(visitId, { outbox: "needs-attention", attention: "Check the times." });
+    renderScreen(visitId);
+    fireEvent.click(await screen.findByRole("button", { name: "Correct it" }));
+    const form = await screen.findByRole("region", { name: "Visit details" });
+    await within(form).findByLabelText("Start time", {}, { timeout: 5000 });
+    fireEvent.change(within(form).getByLabelText("Start time"), { target: { value: "12:00" } });
+    fireEvent.click(within(form).getByRole("button", { name: "Save details" }));
+    expect(await within(form).findByRole("alert")).toHaveTextContent("The walk ended at 11:45");
+    expect((await fieldDb().visits.get(visitId))!.startTime).toBe("10:30");
+  });
+});
