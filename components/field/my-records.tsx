@@ -1,18 +1,10 @@
 "use client";
 
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { useState } from "react";
-
-type RecordSighting = {
-  id: string;
-  vernacularName: string;
-  scientificName: string;
-  count: number;
-  section: number | null;
-  status: "pending" | "accepted" | "queried" | "rejected";
-  question?: string | null;
-};
-type RecordVisit = { id: string; visitDate: string; transectCode: string; transectName: string; sightings: RecordSighting[] };
+import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { keepRecordsCopy, savedRecordsCopy, withReply, type RecordSighting, type RecordsCopy } from "@/lib/offline/records-copy";
+import { Conversation, ReplyForm } from "./records/record-conversation";
+import { VisitsOnPhone } from "./records/visits-on-phone";
+import { useLive } from "./use-live";
 
 const statusLabel: Record<RecordSighting["status"], string> = {
   pending: "Waiting for a checker",
@@ -27,69 +19,87 @@ const statusStyle: Record<RecordSighting["status"], string> = {
   rejected: "bg-rust-100 text-rust-700",
 };
 
-async function fetchRecords(): Promise<RecordVisit[]> {
-  const res = await fetch("/api/field/records", { credentials: "same-origin" });
+async function fetchRecords(): Promise<RecordsCopy> {
+  let res: Response;
+  try {
+    res = await fetch("/api/field/records", { credentials: "same-origin", cache: "no-store" });
+  } catch {
+    throw new Error("No signal.");
+  }
   if (!res.ok) throw new Error(res.status === 401 ? "Sign in again to see your records." : "Your records could not be loaded.");
-  const body = (await res.json()) as { visits: RecordVisit[] };
-  return body.visits;
+  const body = (await res.json()) as Partial<RecordsCopy>;
+  return { visits: body.visits ?? [], asOf: body.asOf ?? new Date().toISOString() };
 }
 
-function Reply({ sightingId }: { sightingId: string }) {
-  const [message, setMessage] = useState("");
+const asOfText = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" });
+
+/**
+ * The volunteer's visits on this phone not yet sent, then their sent visits with each record's
+ * review status and the checkers' questions. The last copy loaded is kept on the phone and shown,
+ * with its age, when there is no signal.
+ */
+export function MyRecords({ volunteerId }: { volunteerId: string }) {
   const client = useQueryClient();
-  const reply = useMutation({
-    mutationFn: async () => {
-      const res = await fetch("/api/field/records/reply", {
-        method: "POST",
-        credentials: "same-origin",
-        headers: { "Content-Type": "application/json" },
-        body: JSON.stringify({ sightingId, message }),
-      });
-      if (!res.ok) {
-        const body = (await res.json().catch(() => ({}))) as { error?: { message?: string } };
-        throw new Error(body.error?.message ?? "The answer could not be sent.");
-      }
-    },
-    onSuccess: () => {
-      setMessage("");
-      void client.invalidateQueries({ queryKey: ["my-records"] });
+  const queryKey = ["my-records", volunteerId];
+  const saved = useLive(() => savedRecordsCopy(volunteerId), [volunteerId]);
+  const fresh = useQuery({
+    queryKey,
+    queryFn: async () => {
+      const copy = await fetchRecords();
+      // The screen still works if the phone cannot store the copy (private mode, full storage).
+      await keepRecordsCopy(volunteerId, copy).catch(() => undefined);
+      return copy;
     },
   });
-  return (
-    <form className="mt-2 space-y-2" onSubmit={(e) => { e.preventDefault(); reply.mutate(); }}>
-      <label htmlFor={`reply-${sightingId}`} className="field-label">Your answer</label>
-      <textarea id={`reply-${sightingId}`} rows={2} maxLength={1000} className="field-input" value={message} onChange={(e) => setMessage(e.target.value)} required />
-      {reply.isError && <p role="alert" className="field-error">{(reply.error as Error).message}</p>}
-      {reply.isSuccess && <p role="status" className="text-sm text-lichen-700">Sent to the checker.</p>}
-      <button type="submit" className="btn-quiet" disabled={reply.isPending || message.trim().length === 0}>Send answer</button>
-    </form>
-  );
-}
+  const shown = fresh.data ?? saved ?? null;
+  const fromPhone = !fresh.data && Boolean(saved);
 
-/** The volunteer's past visits with each record's review status, and the checkers' questions. */
-export function MyRecords() {
-  const records = useQuery({ queryKey: ["my-records"], queryFn: fetchRecords });
+  const replied = (sightingId: string, reply: { message: string; at: string }) => {
+    if (!shown) return;
+    const updated = withReply(shown, sightingId, reply);
+    client.setQueryData(queryKey, updated);
+    void keepRecordsCopy(volunteerId, updated).catch(() => undefined);
+    void client.invalidateQueries({ queryKey });
+  };
+
   return (
     <div className="space-y-4">
       <h1 className="text-2xl font-bold text-tideline-800">My records</h1>
-      {records.isPending && <p>Loading…</p>}
-      {records.isError && <p className="card">{(records.error as Error).message} Records still on this phone are in the outbox on your home page.</p>}
-      {records.data?.length === 0 && <p className="card">No visits sent yet.</p>}
+      <VisitsOnPhone />
+      {fromPhone && shown && (
+        <p role="status" className="rounded-lg bg-sand-100 p-2 text-sm text-sand-800" data-testid="records-as-of">
+          {fresh.isError ? `${(fresh.error as Error).message} ` : "Checking for newer records… "}
+          Showing your records as of {asOfText(shown.asOf)}, saved on this phone.
+        </p>
+      )}
+      {!shown && fresh.isPending && <p>Loading…</p>}
+      {!shown && fresh.isError && saved !== undefined && (
+        <p className="card">{(fresh.error as Error).message} Your sent records show here once they have loaded with a signal.</p>
+      )}
+      {shown?.visits.length === 0 && <p className="card">No visits sent yet.</p>}
       <ul className="space-y-3">
-        {records.data?.map((v) => (
+        {shown?.visits.map((v) => (
           <li key={v.id} className="card">
             <h2 className="font-bold">{v.visitDate} · {v.transectCode} {v.transectName}</h2>
             <ul className="mt-2 divide-y divide-shingle-100">
               {v.sightings.map((s) => (
-                <li key={s.id} className="py-2">
+                <li key={s.id} className="py-2" data-testid="record-sighting">
                   <div className="flex flex-wrap items-center justify-between gap-2">
                     <span>{s.vernacularName} × {s.count}{s.section ? ` · section ${s.section}` : ""}</span>
                     <span className={`rounded-full px-2 py-0.5 text-sm font-bold ${statusStyle[s.status]}`}>{statusLabel[s.status]}</span>
                   </div>
-                  {s.status === "queried" && s.question && (
+                  {(s.conversation ?? []).length > 0 && (
                     <div className="mt-2 rounded-lg bg-sand-100 p-2">
-                      <p className="text-sm"><strong>Checker asks:</strong> {s.question}</p>
-                      <Reply sightingId={s.id} />
+                      <Conversation messages={s.conversation} />
+                      {s.awaitingReply ? (
+                        fromPhone && fresh.isError ? (
+                          <p className="mt-2 text-sm font-bold">The checker is waiting for your answer: you can send it when you have a signal.</p>
+                        ) : (
+                          <ReplyForm sightingId={s.id} onSent={(reply) => replied(s.id, reply)} />
+                        )
+                      ) : (
+                        s.status === "queried" && <p className="mt-2 text-sm text-lichen-700">Your answer is with the checker.</p>
+                      )}
                     </div>
                   )}
                 </li>

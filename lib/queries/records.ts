@@ -1,5 +1,5 @@
 import "server-only";
-import { desc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { db } from "@/db/client";
 import { sightings, species, transects, verificationEvents, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
@@ -7,14 +7,42 @@ import { conflict, forbidden, notFound } from "@/lib/errors";
 
 export const RECORDS_VISIT_LIMIT = 100;
 
-const latestOf = (action: "query" | "reply") =>
-  sql`from ${verificationEvents} e where e.sighting_id = ${sightings.id} and e.action = ${action} order by e.created_at desc limit 1`;
-const latestMessage = (action: "query" | "reply") => sql<string | null>`(select e.message ${latestOf(action)})`;
-const latestAt = (action: "query" | "reply") => sql<Date | null>`(select e.created_at ${latestOf(action)})`.mapWith(sightings.createdAt);
+/** One message between a checker and the volunteer about a sighting, oldest first. */
+export type RecordMessage = { from: "checker" | "volunteer"; message: string | null; at: Date };
+
+/** The sightings of these visits with species names, in section and checklist order. */
+function sightingsOf(visitIds: string[]) {
+  return db()
+    .select({
+      id: sightings.id,
+      visitId: sightings.visitId,
+      speciesId: species.id,
+      vernacularName: species.vernacularName,
+      scientificName: species.scientificName,
+      count: sightings.count,
+      section: sightings.section,
+      status: sightings.status,
+    })
+    .from(sightings)
+    .innerJoin(species, eq(species.id, sightings.speciesId))
+    .where(inArray(sightings.visitId, visitIds))
+    .orderBy(sightings.section, species.sortOrder);
+}
+
+/** Every question and answer on these visits' sightings, oldest first. */
+function messagesOf(visitIds: string[]) {
+  return db()
+    .select({ sightingId: verificationEvents.sightingId, action: verificationEvents.action, message: verificationEvents.message, at: verificationEvents.createdAt })
+    .from(verificationEvents)
+    .innerJoin(sightings, eq(sightings.id, verificationEvents.sightingId))
+    .where(and(inArray(sightings.visitId, visitIds), inArray(verificationEvents.action, ["query", "reply"])))
+    .orderBy(asc(verificationEvents.createdAt), asc(verificationEvents.id));
+}
 
 /**
- * The volunteer's own visits, newest first, each with its sightings, their review status and
- * the coordinator's latest question (so "My records" can show what needs an answer).
+ * The volunteer's own visits, newest first, each with its sightings, their review status, the
+ * coordinator's latest question and the whole exchange (so "My records" can show what needs an
+ * answer and what the volunteer already said).
  */
 export async function myRecords(actor: Actor, limit = RECORDS_VISIT_LIMIT) {
   const visitRows = await db()
@@ -34,26 +62,16 @@ export async function myRecords(actor: Actor, limit = RECORDS_VISIT_LIMIT) {
     .orderBy(desc(visits.visitDate), desc(visits.startTime), desc(visits.createdAt))
     .limit(limit);
   if (!visitRows.length) return [];
+  const visitIds = visitRows.map((v) => v.id);
 
-  const sightingRows = await db()
-    .select({
-      id: sightings.id,
-      visitId: sightings.visitId,
-      speciesId: species.id,
-      vernacularName: species.vernacularName,
-      scientificName: species.scientificName,
-      count: sightings.count,
-      section: sightings.section,
-      status: sightings.status,
-      question: latestMessage("query"),
-      questionAt: latestAt("query"),
-      lastReplyAt: latestAt("reply"),
-    })
-    .from(sightings)
-    .innerJoin(species, eq(species.id, sightings.speciesId))
-    .where(inArray(sightings.visitId, visitRows.map((v) => v.id)))
-    .orderBy(sightings.section, species.sortOrder);
+  const [sightingRows, messageRows] = await Promise.all([sightingsOf(visitIds), messagesOf(visitIds)]);
 
+  const conversations = new Map<string, RecordMessage[]>();
+  for (const m of messageRows) {
+    const list = conversations.get(m.sightingId) ?? [];
+    list.push({ from: m.action === "query" ? "checker" : "volunteer", message: m.message, at: m.at });
+    conversations.set(m.sightingId, list);
+  }
   const byVisit = new Map<string, typeof sightingRows>();
   for (const s of sightingRows) {
     const list = byVisit.get(s.visitId) ?? [];
@@ -62,11 +80,21 @@ export async function myRecords(actor: Actor, limit = RECORDS_VISIT_LIMIT) {
   }
   return visitRows.map((v) => ({
     ...v,
-    sightings: (byVisit.get(v.id) ?? []).map(({ visitId: _visitId, ...s }) => ({
-      ...s,
-      // Answered once the volunteer has replied after the latest question.
-      awaitingReply: s.status === "queried" && s.question !== null && !(s.lastReplyAt && s.questionAt && s.lastReplyAt >= s.questionAt),
-    })),
+    sightings: (byVisit.get(v.id) ?? []).map(({ visitId: _visitId, ...s }) => {
+      const conversation = conversations.get(s.id) ?? [];
+      const lastQuestion = conversation.findLast((m) => m.from === "checker");
+      const lastReply = conversation.findLast((m) => m.from === "volunteer");
+      const question = lastQuestion?.message ?? null;
+      return {
+        ...s,
+        question,
+        questionAt: lastQuestion?.at ?? null,
+        lastReplyAt: lastReply?.at ?? null,
+        conversation,
+        // Answered once the volunteer has replied after the latest question.
+        awaitingReply: s.status === "queried" && question !== null && !(lastReply && lastQuestion && lastReply.at >= lastQuestion.at),
+      };
+    }),
   }));
 }
 

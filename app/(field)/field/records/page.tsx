@@ -5,6 +5,6 @@ import { requirePageActor } from "@/lib/auth/guard";
 export const metadata: Metadata = { title: "My records" };
 
 export default async function RecordsPage() {
-  await requirePageActor(["volunteer"], "/field/records");
-  return <MyRecords />;
+  const actor = await requirePageActor(["volunteer"], "/field/records");
+  return <MyRecords volunteerId={actor.id} />;
 }
