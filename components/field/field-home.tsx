@@ -28,7 +28,6 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
         {reference.offlineCopy && <p className="text-sm text-sand-800">No signal: showing the copy saved on this phone.</p>}
       </div>
 
-
       <section aria-labelledby="my-transects">
         <h2 id="my-transects" className="mb-3 text-xl font-bold">My transects</h2>
         {reference.loading && <p>Loading your transects…</p>}
@@ -55,7 +54,7 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
                     </>
                   )}
                 </p>
-                <a className="btn-primary mt-3 w-full" href={`/field/visit?transect=${t.id}`}>Start a visit</a>
+                <a className="btn-primary mt-3 min-w-tap w-full" href={`/field/visit?transect=${t.id}`}>Start a visit</a>
               </li>
             );
           })}
@@ -70,7 +69,7 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
               const t = data?.transects.find((x) => x.id === d.transectId);
               return (
                 <li key={d.id}>
-                  <a className="btn-quiet w-full justify-between" href={`/field/visit?id=${d.id}&transect=${d.transectId}`}>
+                  <a className="btn-quiet min-w-tap w-full justify-between" href={`/field/visit?id=${d.id}&transect=${d.transectId}`}>
                     <span>{t ? `${t.code} ${t.name}` : "Transect"} · {d.visitDate}</span>
                     <span aria-hidden>›</span>
                   </a>
@@ -83,7 +82,7 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
 
       <OutboxPanel />
       <p>
-        <a className="btn-quiet w-full" href="/field/records">My records and questions</a>
+        <a className="btn-quiet min-w-tap w-full" href="/field/records">My records and questions</a>
       </p>
       <SafetyNotice compact />
     </div>
