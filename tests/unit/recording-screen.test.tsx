@@ -38,6 +38,8 @@ describe("recording screen", () => {
     fireEvent.click(screen.getByRole("button", { name: "Delete Meadow Brown" }));
     const question = screen.getByRole("alertdialog");
     expect(question).toHaveTextContent("Delete Meadow Brown × 3 from this walk?");
+    // The safe answer has the focus, so pressing Enter keeps the record.
+    expect(within(question).getByRole("button", { name: "Keep it" })).toHaveFocus();
     expect(await fieldDb().sightings.count()).toBe(2);
     fireEvent.click(within(question).getByRole("button", { name: "Keep it" }));
     expect(screen.queryByRole("alertdialog")).toBeNull();

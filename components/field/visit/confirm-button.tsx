@@ -34,7 +34,9 @@ export function ConfirmButton({
     <div role="alertdialog" aria-label={question} className="w-full rounded-lg border-2 border-rust-700 bg-rust-100 p-3">
       <p className="font-bold text-rust-700">{question}</p>
       <div className="mt-2 grid grid-cols-2 gap-2">
-        <button type="button" className="btn-quiet min-w-tap" onClick={() => setAsking(false)} disabled={busy}>
+        {/* Focus lands on the safe choice, so pressing Enter keeps the record. */}
+        {/* eslint-disable-next-line jsx-a11y/no-autofocus */}
+        <button type="button" className="btn-quiet min-w-tap" onClick={() => setAsking(false)} disabled={busy} autoFocus>
           Keep it
         </button>
         <button
