@@ -5,6 +5,7 @@ import { db } from "@/db/client";
 import { seasons, sightings, species, transectAssignments, transects, users, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { applySyncBatch } from "@/lib/sync/apply-batch";
+import { inBatchTransaction, type BatchTx } from "@/lib/sync/batch-transaction";
 import { BatchRaced, deletePendingSightings, upsertSightings, upsertVisits } from "@/lib/sync/write";
 import { resetToDemo } from "./support/db";
 
@@ -45,6 +46,14 @@ function sightingOf(visitId: string, speciesId: string, over: Record<string, unk
     clientUpdatedAt: "2026-05-14T11:00:00.000Z",
     ...over,
   };
+}
+
+/** The writes run as the sync route runs them: in a batch transaction, after its BEGIN. */
+function inBatch<T>(work: (tx: BatchTx) => Promise<T>): Promise<T> {
+  return inBatchTransaction(async (tx, begun) => {
+    await begun;
+    return work(tx);
+  });
 }
 
 async function rowCounts() {
@@ -168,7 +177,7 @@ describe("applying a sync batch from a volunteer's phone", () => {
   it("PostgreSQL itself refuses NUL, unpaired surrogates and year 0000 in the batch write, which is why the contract refuses them first", async () => {
     const visit = visitOf(transect.id);
     const row = { id: visit.id, transectId: transect.id, volunteerId: actor.id, seasonId: null, visitDate: "2026-05-14", startTime: "10:30:00", completeList: false, notes: null, clientUpdatedAt: new Date("2026-05-14T11:50:00Z") };
-    const writeOne = (over: Record<string, unknown>) => db().transaction((tx) => upsertVisits(tx, [{ ...row, ...over }]));
+    const writeOne = (over: Record<string, unknown>) => inBatch((tx) => upsertVisits(tx, [{ ...row, ...over }]));
     // PostgreSQL manual, 8.3 Character Types: "the character with code zero (sometimes called NUL) cannot be stored";
     // 8.14 JSON Types: \u0000 and unpaired surrogate escapes cannot be turned into text.
     await expect(writeOne({ notes: "locked\u0000" })).rejects.toThrow();
@@ -348,19 +357,19 @@ describe("applying a sync batch from a volunteer's phone", () => {
     const sightingRow = { id: s.id, visitId: visit.id, speciesId: speciesIds[0]!, count: 50, section: 1, latitude: null, longitude: null, accuracyMetres: null, note: null, clientUpdatedAt: later };
     const visitRow = { id: visit.id, transectId: transect.id, volunteerId: actor.id, seasonId: null, visitDate: "2026-05-14", startTime: "10:30:00", completeList: false, notes: "late edit", clientUpdatedAt: later };
 
-    await expect(db().transaction((tx) => upsertSightings(tx, actor.id, [sightingRow]))).rejects.toBeInstanceOf(BatchRaced);
-    await expect(db().transaction((tx) => deletePendingSightings(tx, [s.id]))).rejects.toBeInstanceOf(BatchRaced);
-    await expect(db().transaction((tx) => upsertVisits(tx, [visitRow]))).rejects.toBeInstanceOf(BatchRaced);
+    await expect(inBatch((tx) => upsertSightings(tx, actor.id, [sightingRow]))).rejects.toBeInstanceOf(BatchRaced);
+    await expect(inBatch((tx) => deletePendingSightings(tx, [s.id]))).rejects.toBeInstanceOf(BatchRaced);
+    await expect(inBatch((tx) => upsertVisits(tx, [visitRow]))).rejects.toBeInstanceOf(BatchRaced);
     await db().update(sightings).set({ status: "pending", reviewedAt: null }).where(eq(sightings.id, s.id));
     const intruder = await actorFor("volunteer02@harrowmere.example");
-    await expect(db().transaction((tx) => upsertSightings(tx, intruder.id, [sightingRow]))).rejects.toBeInstanceOf(BatchRaced);
-    await expect(db().transaction((tx) => upsertVisits(tx, [{ ...visitRow, volunteerId: intruder.id }]))).rejects.toBeInstanceOf(BatchRaced);
+    await expect(inBatch((tx) => upsertSightings(tx, intruder.id, [sightingRow]))).rejects.toBeInstanceOf(BatchRaced);
+    await expect(inBatch((tx) => upsertVisits(tx, [{ ...visitRow, volunteerId: intruder.id }]))).rejects.toBeInstanceOf(BatchRaced);
 
     expect((await storedSighting(s.id))!.count).toBe(3);
     const [stored] = await db().select().from(visits).where(eq(visits.id, visit.id));
     expect(stored).toMatchObject({ notes: "Sheltered on the lower slope.", volunteerId: actor.id });
     // With nothing in the way the same rows do land, so the refusals above were the guards at work.
-    await db().transaction((tx) => upsertSightings(tx, actor.id, [sightingRow]));
+    await inBatch((tx) => upsertSightings(tx, actor.id, [sightingRow]));
     expect((await storedSighting(s.id))!.count).toBe(50);
   });
 });
