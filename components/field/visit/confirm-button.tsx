@@ -35,7 +35,6 @@ export function ConfirmButton({
       <p className="font-bold text-rust-700">{question}</p>
       <div className="mt-2 grid grid-cols-2 gap-2">
         {/* Focus lands on the safe choice, so pressing Enter keeps the record. */}
-        {/* eslint-disable-next-line jsx-a11y/no-autofocus */}
         <button type="button" className="btn-quiet min-w-tap" onClick={() => setAsking(false)} disabled={busy} autoFocus>
           Keep it
         </button>

@@ -13,7 +13,7 @@ export function PhotoThumbnail({ blob, label, onRemove }: { blob: Blob; label: s
   return (
     <li className="flex flex-col items-center gap-1" data-testid="photo-thumbnail">
       {url ? (
-        // eslint-disable-next-line @next/next/no-img-element -- a local Blob, not something next/image can optimise
+        // A plain img: next/image cannot optimise a local Blob.
         <img src={url} alt={label} className="h-20 w-20 rounded-lg border border-shingle-200 object-cover" />
       ) : (
         <span className="h-20 w-20 rounded-lg bg-shingle-100" aria-hidden />
