@@ -2,6 +2,7 @@ import "server-only";
 import { fileTypeFromBuffer } from "file-type";
 import sharp, { type Metadata } from "sharp";
 import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, acceptedPhotoTypes } from "./contract";
+import { heifImageSizes } from "./heif-header";
 import { PhotoRefusal, megabytes } from "./refusal";
 
 export type AcceptedPhotoType = (typeof acceptedPhotoTypes)[number];
@@ -11,7 +12,7 @@ export type InspectedPhoto = {
   width: number;
   height: number;
   bytes: number;
-  /** "hevc" or "av1" for HEIF files, so HEVC can be refused when this server cannot decode it. */
+  /** "hevc" or "av1" for HEIF files, so HEVC can go to a decoder that reads it (process.ts). */
   compression?: string;
 };
 
@@ -69,6 +70,29 @@ async function sniffType(bytes: Uint8Array): Promise<AcceptedPhotoType> {
   throw new PhotoRefusal(`This file is not a photo we recognise: ${ACCEPT_HINT}.`);
 }
 
+const DAMAGED = "This photo is damaged or incomplete and could not be read.";
+
+function refuseIfTooManyPixels(width: number, height: number): void {
+  if (width * height > MAX_PHOTO_PIXELS) {
+    const megapixels = Math.round((width * height) / 1_000_000);
+    throw new PhotoRefusal(
+      `This image is ${width} × ${height} pixels (${megapixels} megapixels); photos can be at most ${MAX_PHOTO_PIXELS / 1_000_000} megapixels.`,
+    );
+  }
+}
+
+/**
+ * HEIF declares a size for every coded image (the photo, its grid tiles, thumbnails, depth maps)
+ * in 'ispe' boxes, before any crop or rotation. The largest must fit, whatever size libheif
+ * would report for the cropped primary, and a file that declares none is not valid HEIF.
+ */
+function refuseOversizedHeif(bytes: Uint8Array): void {
+  const sizes = heifImageSizes(bytes);
+  if (sizes.length === 0) throw new PhotoRefusal(DAMAGED);
+  const largest = sizes.reduce((a, b) => (b.width * b.height > a.width * a.height ? b : a));
+  refuseIfTooManyPixels(largest.width, largest.height);
+}
+
 /**
  * Decides whether bytes are a photo we accept, without decoding any pixels: type by file
  * signature, then size and dimensions from the header, so decompression bombs never get decoded.
@@ -80,6 +104,7 @@ export async function inspectPhoto(bytes: Uint8Array): Promise<InspectedPhoto> {
     throw new PhotoRefusal(`Photos can be at most ${megabytes(MAX_PHOTO_BYTES)}; this file is ${megabytes(bytes.byteLength)}.`);
   }
   const contentType = await sniffType(bytes);
+  if (loaderFor[contentType] === "heif") refuseOversizedHeif(bytes);
 
   let meta: Metadata;
   try {
@@ -87,17 +112,10 @@ export async function inspectPhoto(bytes: Uint8Array): Promise<InspectedPhoto> {
     // compare the declared size with ours below and report it instead of a generic failure.
     meta = await sharp(bytes, { limitInputPixels: false }).metadata();
   } catch {
-    throw new PhotoRefusal("This photo is damaged or incomplete and could not be read.");
+    throw new PhotoRefusal(DAMAGED);
   }
   const { width, height } = meta;
-  if (meta.format !== loaderFor[contentType] || !width || !height) {
-    throw new PhotoRefusal("This photo is damaged or incomplete and could not be read.");
-  }
-  if (width * height > MAX_PHOTO_PIXELS) {
-    const megapixels = Math.round((width * height) / 1_000_000);
-    throw new PhotoRefusal(
-      `This image is ${width} × ${height} pixels (${megapixels} megapixels); photos can be at most ${MAX_PHOTO_PIXELS / 1_000_000} megapixels.`,
-    );
-  }
+  if (meta.format !== loaderFor[contentType] || !width || !height) throw new PhotoRefusal(DAMAGED);
+  refuseIfTooManyPixels(width, height);
   return { contentType, width, height, bytes: bytes.byteLength, ...(meta.compression ? { compression: meta.compression } : {}) };
 }

@@ -9,7 +9,6 @@ import { db } from "@/db/client";
 import { photos, sightings, users, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { env } from "@/lib/env";
-import { HEIC_UNSUPPORTED, canDecodeHeic } from "@/lib/photos/codecs";
 import { completeUpload, PHOTO_NOT_UPLOADED } from "@/lib/photos/complete";
 import { photoUploadRequest } from "@/lib/photos/contract";
 import { photoKeys } from "@/lib/photos/keys";
@@ -17,7 +16,20 @@ import { photoViewUrl } from "@/lib/photos/links";
 import { PHOTO_REFUSED } from "@/lib/photos/refusal";
 import { PHOTO_ALREADY_UPLOADED, requestUploadTicket } from "@/lib/photos/tickets";
 import { photoBucket, s3 } from "@/lib/storage/s3";
-import { declaredHugePng, paddedJpeg, phoneJpeg, pixelBombPng, svgDrawing, textFile, tinyHeic } from "../support/images";
+import {
+  HEIC_COLOURS,
+  colourDistance,
+  declaredHugePng,
+  exifBlockOf,
+  heicClaiming,
+  paddedJpeg,
+  phoneJpeg,
+  phonePortraitHeic,
+  pixelAt,
+  pixelBombPng,
+  svgDrawing,
+  textFile,
+} from "../support/images";
 import { resetToDemo } from "./support/db";
 
 async function actorFor(email: string): Promise<Actor> {
@@ -177,13 +189,31 @@ describe("field photos against the real database and S3 fake", () => {
     expect((await rowOf(id)).bytes).toBe(20 * 1024 * 1024);
   });
 
-  it("handles an iPhone-style HEVC HEIC as this server's libvips allows", async () => {
-    const { id } = await upload(tinyHeic, undefined, "IMG_0002.HEIC");
-    if (canDecodeHeic()) {
-      await expect(completeUpload(volunteer, id)).resolves.toMatchObject({ photo: { status: "ready", width: 64, height: 48 } });
-    } else {
-      await expectRefused(id, HEIC_UNSUPPORTED);
-    }
+  it("takes a phone's HEVC HEIC: turned as the phone showed it, with its GPS gone", async () => {
+    // The upload carries a GPS position in its EXIF (read with exifr, a well-known EXIF reader).
+    expect(await exifr.gps(exifBlockOf(phonePortraitHeic))).toEqual({ latitude: 51.5, longitude: -1.25 });
+    const { id } = await upload(phonePortraitHeic, undefined, "IMG_0002.HEIC");
+    // Stored 320 × 240 with an irot box: shown 240 × 320.
+    await expect(completeUpload(volunteer, id)).resolves.toEqual({ photo: { id, status: "ready", width: 240, height: 320 } });
+    const row = await rowOf(id);
+    expect(row).toMatchObject({ status: "ready", contentType: "image/heic", bytes: phonePortraitHeic.length });
+    expect(await exists(photoKeys(visitId, id).original)).toBe(false);
+
+    const res = await fetch(await photoViewUrl(volunteer, id, "display"));
+    expect(res.status).toBe(200);
+    const display = Buffer.from(await res.arrayBuffer());
+    expect((await fileTypeFromBuffer(display))?.mime).toBe("image/jpeg");
+    expect(await exifr.gps(display)).toBeUndefined();
+    expect(await exifr.parse(display, { tiff: true, xmp: true, iptc: true, icc: true })).toBeUndefined();
+    expect((await sharp(display).metadata()).exif).toBeUndefined();
+    // The red block stored at the top left now sits at the top right (each channel within 12: lossy).
+    expect(colourDistance(await pixelAt(display, 210, 40), HEIC_COLOURS.red)).toBeLessThanOrEqual(12);
+    expect(colourDistance(await pixelAt(display, 30, 40), HEIC_COLOURS.background)).toBeLessThanOrEqual(12);
+  });
+
+  it("refuses a HEIC whose header claims 50 megapixels, before decoding it", async () => {
+    const { id } = await upload(heicClaiming(10_000, 5_000), undefined, "IMG_0003.HEIC");
+    await expectRefused(id, "This image is 10000 × 5000 pixels (50 megapixels); photos can be at most 40 megapixels.");
   });
 
   it("keeps photos to their own visits and people", async () => {

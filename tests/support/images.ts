@@ -1,5 +1,6 @@
-// Test images made at run time with sharp (and a few hand-built byte strings), so no binary
-// fixtures live in the repository.
+// Test images made at run time with sharp (and a few hand-built byte strings), plus the real
+// phone HEICs in tests/fixtures, which sharp cannot make (see tests/fixtures/README.md).
+import { readFileSync } from "node:fs";
 import { crc32, deflateSync } from "node:zlib";
 import sharp from "sharp";
 
@@ -86,3 +87,53 @@ export const tinyHeic = Buffer.from(
   "AAAAHGZ0eXBoZWljAAAAAG1pZjFoZWljbWlhZgAAAa1tZXRhAAAAAAAAACFoZGxyAAAAAAAAAABwaWN0AAAAAAAAAAAAAAAAAAAAAA5waXRtAAAAAAACAAAAEGlkYXQAAAAAAEAAMAAAADhpbG9jAQAAAERAAAIAAQAAAAAAAAHRAAEAAAAAAAAAGQACAAEAAAAAAAAAAQAAAAAAAAAIAAAAOGlpbmYAAAAAAAIAAAAVaW5mZQIAAAEAAQAAaHZjMQAAAAAVaW5mZQIAAAAAAgAAZ3JpZAAAAADYaXBycAAAALZpcGNvAAAAdmh2Y0MBA3AAAAAAAAAAAAAe8AD8/fj4AAAPAyAAAQAYQAEMAf//A3AAAAMAkAAAAwAAAwAeugJAIQABACpCAQEDcAAAAwCQAAADAAADAB6gIIEFlurkprm4EBAwIAAAAwAgAAADACEiAAEABkQBwXPAiQAAABRpc3BlAAAAAAAAAEAAAABAAAAAFGlzcGUAAAAAAAAAQAAAADAAAAAQcGl4aQAAAAADCAgIAAAAGmlwbWEAAAAAAAAAAgABAoECAAICA4QAAAAaaXJlZgAAAAAAAAAOZGltZwACAAEAAQAAACFtZGF0AAAAFSgBrxmA70mlv/+XLf9mTv5+taY+bg==",
   "base64",
 );
+
+function fixture(name: string): Buffer {
+  return readFileSync(new URL(`../fixtures/${name}`, import.meta.url));
+}
+
+/**
+ * Real HEVC HEICs as phones write them (tests/fixtures/README.md): 320 × 240 as stored, blue-grey
+ * with a red block at the top left and a green one at the top right, EXIF with GPS 51.5° N 1.25° W.
+ * The portrait one carries irot (EXIF orientation 6: seen 240 × 320, red top right, green bottom
+ * right); the mirrored one imir (EXIF orientation 2: seen 320 × 240, green top left, red top right).
+ */
+export const phonePortraitHeic = fixture("phone-portrait.heic");
+export const phoneMirroredHeic = fixture("phone-mirrored.heic");
+export const HEIC_COLOURS = { red: [220, 30, 30], green: [30, 200, 60], background: [60, 90, 160] } as const;
+
+/**
+ * The EXIF block inside a fixture HEIC, as the TIFF structure it is. exifr's HEIF reader ignores
+ * the iloc base_offset that libheif 1.15 writes, so it finds no EXIF in the file itself.
+ */
+export function exifBlockOf(heic: Buffer): Buffer {
+  const start = heic.indexOf(Buffer.from("MM\0*", "latin1"));
+  if (start < 0) throw new Error("no big-endian TIFF header in this HEIC");
+  return heic.subarray(start);
+}
+
+/**
+ * The portrait HEIC with its one 'ispe' box (ISO/IEC 23008-12 image spatial extents) rewritten
+ * to claim width × height: a decompression bomb in header only, since the HEVC data stays 320 × 240.
+ */
+export function heicClaiming(width: number, height: number): Buffer {
+  const bytes = Buffer.from(phonePortraitHeic);
+  const ispe = bytes.indexOf(Buffer.from("ispe", "latin1"));
+  if (ispe < 0 || bytes.indexOf(Buffer.from("ispe", "latin1"), ispe + 4) >= 0) throw new Error("expected exactly one ispe box");
+  // After the type come version and flags (4 bytes), then width and height as 32-bit integers.
+  bytes.writeUInt32BE(width, ispe + 8);
+  bytes.writeUInt32BE(height, ispe + 12);
+  return bytes;
+}
+
+/** The RGB of one pixel of an encoded image, after sharp decodes it. */
+export async function pixelAt(image: Buffer, x: number, y: number): Promise<[number, number, number]> {
+  const { data, info } = await sharp(image).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+  const at = (y * info.width + x) * info.channels;
+  return [data[at]!, data[at + 1]!, data[at + 2]!];
+}
+
+/** The largest difference in any one channel between two RGB colours. */
+export function colourDistance(a: readonly number[], b: readonly number[]): number {
+  return Math.max(...a.map((value, i) => Math.abs(value - b[i]!)));
+}

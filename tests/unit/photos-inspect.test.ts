@@ -2,16 +2,24 @@ import exifr from "exifr";
 import { fileTypeFromBuffer } from "file-type";
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
-import { HEIC_UNSUPPORTED, canDecodeHeic } from "@/lib/photos/codecs";
+import { canDecodeHeic } from "@/lib/photos/codecs";
 import { MAX_PHOTO_BYTES } from "@/lib/photos/contract";
+import { heifImageSizes } from "@/lib/photos/heif-header";
 import { inspectPhoto } from "@/lib/photos/inspect";
-import { DISPLAY_EDGE, THUMBNAIL_EDGE, processPhoto } from "@/lib/photos/process";
+import { DISPLAY_EDGE, HEIC_UNREADABLE, THUMBNAIL_EDGE, processPhoto } from "@/lib/photos/process";
 import { PHOTO_REFUSED, PhotoRefusal } from "@/lib/photos/refusal";
 import {
+  HEIC_COLOURS,
+  colourDistance,
   declaredHugePng,
+  exifBlockOf,
+  heicClaiming,
   paddedJpeg,
   pdfFile,
   phoneJpeg,
+  phoneMirroredHeic,
+  phonePortraitHeic,
+  pixelAt,
   pixelBombPng,
   solidImage,
   svgDrawing,
@@ -48,6 +56,38 @@ describe("inspectPhoto: what counts as a photo, by content alone", () => {
 
   it("accepts an HEVC HEIC by its ISO-BMFF 'ftyp heic' box and reads its size without decoding", async () => {
     await expect(inspectPhoto(tinyHeic)).resolves.toMatchObject({ contentType: "image/heic", width: 64, height: 48, compression: "hevc" });
+    // A phone photo stored 320 × 240 with irot: sharp (libheif) reports the size as shown.
+    await expect(inspectPhoto(phonePortraitHeic)).resolves.toMatchObject({ contentType: "image/heic", width: 240, height: 320, compression: "hevc" });
+  });
+
+  it("reads every HEIF 'ispe' box (ISO/IEC 23008-12 image spatial extents), before rotation", () => {
+    expect(heifImageSizes(phonePortraitHeic)).toEqual([{ width: 320, height: 240 }]);
+    // tinyHeic is a grid: a 64 × 64 coded tile shown through a 64 × 48 grid image.
+    expect(heifImageSizes(tinyHeic)).toEqual([
+      { width: 64, height: 64 },
+      { width: 64, height: 48 },
+    ]);
+    expect(heifImageSizes(heicClaiming(12_000, 4_000))).toEqual([{ width: 12_000, height: 4_000 }]);
+    expect(heifImageSizes(phonePortraitHeic.subarray(0, 40))).toEqual([]);
+    expect(heifImageSizes(textFile)).toEqual([]);
+  });
+
+  it("refuses a HEIC whose ispe claims more than 40 MP from the header alone, before libheif reads it", async () => {
+    // The HEVC data is still 320 × 240: only the declared size is a bomb.
+    expect((await refusalOf(inspectPhoto(heicClaiming(10_000, 5_000)))).message).toBe(
+      "This image is 10000 × 5000 pixels (50 megapixels); photos can be at most 40 megapixels.",
+    );
+    // Beyond libheif's own limits, sharp's header read would fail as "damaged": this message
+    // shows the ispe check answered first.
+    expect((await refusalOf(inspectPhoto(heicClaiming(100_000, 100_000)))).message).toMatch(/^This image is 100000 × 100000 pixels \(10000 megapixels\)/);
+    // Under the limit the claim passes inspection (decoding would then find the mismatch).
+    await expect(inspectPhoto(heicClaiming(6_000, 6_000))).resolves.toMatchObject({ width: 6_000, height: 6_000 });
+  });
+
+  it("refuses a HEIF that declares no size at all as damaged", async () => {
+    const noIspe = Buffer.from(phonePortraitHeic);
+    noIspe.write("xxxx", noIspe.indexOf("ispe"), "latin1");
+    expect((await refusalOf(inspectPhoto(noIspe))).message).toBe("This photo is damaged or incomplete and could not be read.");
   });
 
   it("refuses a text file whatever it is called", async () => {
@@ -155,18 +195,50 @@ describe("processPhoto: what we keep", () => {
     expect((await refusalOf(processPhoto(bomb, pretend))).message).toBe("Photos can be at most 40 megapixels.");
   });
 
-  it("handles HEIC as this server's libvips allows: processed when it has an HEVC decoder, otherwise a clear refusal", async () => {
+  it("decodes HEVC HEIC with libheif-js where libvips cannot, and says which path it takes", async () => {
     // The capability check must agree with what sharp actually does with a real HEVC HEIC.
-    const decodes = await sharp(tinyHeic).toBuffer().then(
+    const sharpDecodes = await sharp(tinyHeic).toBuffer().then(
       () => true,
       () => false,
     );
-    expect(canDecodeHeic()).toBe(decodes);
-    const attempt = processPhoto(tinyHeic, await inspectPhoto(tinyHeic));
-    if (decodes) {
-      await expect(attempt).resolves.toMatchObject({ display: { width: 64, height: 48 } });
-    } else {
-      expect((await refusalOf(attempt)).message).toBe(HEIC_UNSUPPORTED);
+    expect(canDecodeHeic()).toBe(sharpDecodes);
+    const { display, thumbnail } = await processPhoto(tinyHeic, await inspectPhoto(tinyHeic));
+    expect([display.width, display.height, thumbnail.width, thumbnail.height]).toEqual([64, 48, 64, 48]);
+  });
+
+  it("keeps a phone HEIC's pixels as shown (irot applied) and none of its EXIF, GPS included", async () => {
+    // The fixture really carries what we mean to strip (its EXIF block read with exifr).
+    expect(await exifr.gps(exifBlockOf(phonePortraitHeic))).toEqual({ latitude: 51.5, longitude: -1.25 });
+    expect(await exifr.parse(exifBlockOf(phonePortraitHeic))).toMatchObject({ Make: "FieldCam", Orientation: "Rotate 90 CW" });
+
+    const { display, thumbnail } = await processPhoto(phonePortraitHeic, await inspectPhoto(phonePortraitHeic));
+    for (const out of [display, thumbnail]) {
+      expect(await exifr.gps(out.bytes)).toBeUndefined();
+      expect(await exifr.parse(out.bytes, { tiff: true, xmp: true, iptc: true, icc: true })).toBeUndefined();
+      const meta = await sharp(out.bytes).metadata();
+      expect([meta.format, meta.exif, meta.icc, meta.space]).toEqual(["jpeg", undefined, undefined, "srgb"]);
+      // Stored 320 × 240 landscape; irot turns it 90° clockwise once (not twice, though its
+      // EXIF Orientation says the same again): 240 × 320 portrait.
+      expect([out.width, out.height]).toEqual([240, 320]);
     }
+    // The red block stored at the top left is now at the top right, the green one bottom right.
+    // HEVC and JPEG are lossy: each channel within 12 of the encoded value.
+    expect(colourDistance(await pixelAt(display.bytes, 210, 40), HEIC_COLOURS.red)).toBeLessThanOrEqual(12);
+    expect(colourDistance(await pixelAt(display.bytes, 210, 280), HEIC_COLOURS.green)).toBeLessThanOrEqual(12);
+    expect(colourDistance(await pixelAt(display.bytes, 30, 40), HEIC_COLOURS.background)).toBeLessThanOrEqual(12);
+  });
+
+  it("applies a HEIC's imir (mirror) as well", async () => {
+    const { display } = await processPhoto(phoneMirroredHeic, await inspectPhoto(phoneMirroredHeic));
+    expect([display.width, display.height]).toEqual([320, 240]);
+    expect(colourDistance(await pixelAt(display.bytes, 40, 30), HEIC_COLOURS.green)).toBeLessThanOrEqual(12);
+    expect(colourDistance(await pixelAt(display.bytes, 280, 30), HEIC_COLOURS.red)).toBeLessThanOrEqual(12);
+  });
+
+  it("refuses a HEIC that cannot be decoded with a clear message, even if inspection were skipped", async () => {
+    const pretend = { contentType: "image/heic", width: 240, height: 320, bytes: 1, compression: "hevc" } as const;
+    // Cut off inside the HEVC data, and a header that claims 50 MP over 320 × 240 of data.
+    expect((await refusalOf(processPhoto(phonePortraitHeic.subarray(0, 700), pretend))).message).toBe(HEIC_UNREADABLE);
+    expect((await refusalOf(processPhoto(heicClaiming(10_000, 5_000), pretend))).message).toBe(HEIC_UNREADABLE);
   });
 });
