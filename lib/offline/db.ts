@@ -6,8 +6,17 @@ import Dexie, { type EntityTable } from "dexie";
 /** Where an item stands between the phone and the server. */
 export type OutboxState = "on-phone" | "sending" | "sent" | "needs-attention";
 
+/** What the server kept in place of the phone's later edit (it was reviewed, or newer). */
+export type KeptOnServer = { visit: boolean; sightings: number };
+
 export type LocalVisit = {
   id: string;
+  /**
+   * The signed-in volunteer who recorded it, so a shared phone sends and lists each person's
+   * own visits. Empty on visits recorded before owners were kept: the first volunteer who
+   * syncs on this phone claims them. Only a filter on the phone: the server checks every item.
+   */
+  ownerId?: string | null;
   transectId: string;
   visitDate: string;
   startTime: string;
@@ -26,6 +35,8 @@ export type LocalVisit = {
   outbox: OutboxState;
   attention: string | null;
   attempts: number;
+  /** Sent, but the server kept its copy of the visit or of some sightings: the volunteer is told. */
+  keptOnServer?: KeptOnServer | null;
 };
 
 export type LocalSighting = {
@@ -60,6 +71,23 @@ export type LocalPhoto = {
 export type ReferenceEntry = { key: string; value: unknown; savedAt: string };
 export type MetaEntry = { key: string; value: unknown };
 
+// The volunteer signed in on this page, set by the field layout before its screens render.
+let signedInUserId: string | null = null;
+
+/** Records who is signed in, so new visits carry their owner. */
+export function setFieldUser(userId: string | null): void {
+  signedInUserId = userId;
+}
+
+export function fieldUser(): string | null {
+  return signedInUserId;
+}
+
+/** A visit shown to and sent for this volunteer: theirs, or one recorded before owners were kept. */
+export function belongsTo(visit: Pick<LocalVisit, "ownerId">, userId: string | null): boolean {
+  return visit.ownerId == null || visit.ownerId === userId;
+}
+
 export class FieldDatabase extends Dexie {
   visits!: EntityTable<LocalVisit, "id">;
   sightings!: EntityTable<LocalSighting, "id">;
@@ -75,6 +103,22 @@ export class FieldDatabase extends Dexie {
       photos: "id, visitId, sightingId, outbox",
       reference: "key",
       meta: "key",
+    });
+    // Version 2: visits have an owner. Older visits get an explicit empty owner, to be claimed.
+    this.version(2)
+      .stores({ visits: "id, transectId, phase, outbox, visitDate, ownerId" })
+      .upgrade((tx) =>
+        tx
+          .table<LocalVisit>("visits")
+          .toCollection()
+          .modify((visit) => {
+            visit.ownerId ??= null;
+            visit.keptOnServer ??= null;
+          }),
+      );
+    // Every way of creating a visit stamps the signed-in volunteer, without each caller passing it.
+    this.visits.hook("creating", (_id, visit) => {
+      if (visit.ownerId == null) visit.ownerId = signedInUserId;
     });
   }
 }

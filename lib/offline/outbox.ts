@@ -1,10 +1,40 @@
-import { settledStatuses, type ItemResult, type SightingPayload, type SyncResponse, type VisitPayload } from "@/lib/sync/protocol";
-import { fieldDb, type LocalSighting, type LocalVisit } from "./db";
+import { MAX_BATCH_ITEMS, type ItemResult, type SightingPayload, type SyncResponse, type VisitPayload } from "@/lib/sync/protocol";
+import { belongsTo, fieldDb, type LocalSighting, type LocalVisit, type OutboxState } from "./db";
+import { batchBody, encode, planBatches, type BatchLimits, type VisitGroup } from "./outbox-batches";
+import { applyResults, backToPhone, refuseBatch, setSightings, type OutboxBatch } from "./outbox-results";
 import { sendPhotos } from "./photo-upload";
+import { isPassingFault, readServerError } from "./server-answers";
 
-export type OutboxRun = { sent: number; needsAttention: number; offline: boolean; signedOut: boolean };
+/**
+ * The largest sync request body the server reads: MAX_BODY_BYTES in
+ * app/(field)/api/field/sync/route.ts, which answers 413 above it. The contract does not export
+ * it, so it is repeated here; tests/unit/outbox-batching.test.ts fails if the two drift apart.
+ */
+export const MAX_SYNC_BODY_BYTES = 2_000_000;
 
-const MAX_VISITS_PER_BATCH = 10;
+/**
+ * What one batch may hold. Item counts come from the contract (lib/sync/contract.ts syncEnvelope
+ * allows MAX_BATCH_ITEMS visits and as many sightings). Few visits per batch, so that a batch
+ * refused as a whole holds back few visits.
+ */
+export const OUTBOX_LIMITS: BatchLimits = {
+  visits: Math.min(10, MAX_BATCH_ITEMS),
+  sightings: MAX_BATCH_ITEMS,
+  bodyBytes: MAX_SYNC_BODY_BYTES,
+};
+
+export type OutboxRun = {
+  sent: number;
+  needsAttention: number;
+  /** Sent, but the server kept its reviewed (or newer) copy: the volunteer is told. */
+  keptOnServer: number;
+  offline: boolean;
+  signedOut: boolean;
+  /** Something failed that may pass (no signal, a server or photo store fault): try again later. */
+  retryLater: boolean;
+};
+
+export const SIGN_IN_AGAIN = "Sign in again to send these records.";
 
 function toVisitPayload(v: LocalVisit): VisitPayload {
   return {
@@ -40,114 +70,135 @@ function toSightingPayload(s: LocalSighting): SightingPayload {
   };
 }
 
-function describe(result: ItemResult): string {
-  if (result.status === "forbidden") return result.reason ?? "This transect is not assigned to you any more.";
-  const fieldMessages = Object.entries(result.errors ?? {}).map(([field, msgs]) => `${field}: ${msgs.join(" ")}`);
-  return [result.reason, ...fieldMessages].filter(Boolean).join("; ") || "The server could not accept this item.";
+const waiting = (state: OutboxState) => state === "on-phone" || state === "sending";
+
+/** Visits recorded before owners were kept go to the first volunteer who syncs on this phone. */
+async function claimUnownedVisits(userId: string): Promise<void> {
+  await fieldDb().visits.filter((v) => v.ownerId == null).modify({ ownerId: userId });
 }
 
 /**
- * Submitted visits waiting to go. "sending" ones are included: a tab closed mid-request leaves
- * them so, and resending is safe because the server is idempotent by id. Visits that need the
- * volunteer's attention wait until they are corrected and submitted again.
+ * This volunteer's submitted visits still to send, each with its sightings still to send. A
+ * "sending" item is included: a tab closed mid-request leaves it so, and resending is safe
+ * because the server is idempotent by id. A visit the server already has can still have
+ * sightings waiting (a visit split over batches). Visits that need attention wait until the
+ * volunteer corrects and submits them again.
  */
-async function pendingVisits(): Promise<LocalVisit[]> {
-  const all = await fieldDb().visits.where("phase").equals("submitted").toArray();
-  return all.filter((v) => v.outbox === "on-phone" || v.outbox === "sending");
-}
-
-/**
- * One pass of the outbox: sends submitted visits with their sightings, then their photos.
- * Items move on-phone -> sending -> sent, or to needs-attention with the server's reason.
- * A failure of the network leaves everything on the phone for the next pass.
- */
-export async function runOutbox(fetcher: typeof fetch = fetch): Promise<OutboxRun> {
+async function pendingGroups(userId: string): Promise<VisitGroup<LocalVisit, LocalSighting>[]> {
   const db = fieldDb();
-  const run: OutboxRun = { sent: 0, needsAttention: 0, offline: false, signedOut: false };
-  const visits = await pendingVisits();
-  for (let i = 0; i < visits.length; i += MAX_VISITS_PER_BATCH) {
-    const batch = visits.slice(i, i + MAX_VISITS_PER_BATCH);
-    const visitIds = batch.map((v) => v.id);
-    const sightings = (await db.sightings.where("visitId").anyOf(visitIds).toArray()).filter((s) => s.outbox !== "sent");
-    await db.transaction("rw", db.visits, db.sightings, async () => {
-      await db.visits.where("id").anyOf(visitIds).modify({ outbox: "sending" });
-      await db.sightings.where("id").anyOf(sightings.map((s) => s.id)).modify({ outbox: "sending" });
-    });
+  const visits = (await db.visits.where("ownerId").equals(userId).toArray())
+    .filter((v) => v.phase === "submitted" && v.outbox !== "needs-attention")
+    .sort((a, b) => (a.submittedAt ?? "").localeCompare(b.submittedAt ?? "") || a.id.localeCompare(b.id));
+  const sightings = await db.sightings.where("visitId").anyOf(visits.map((v) => v.id)).toArray();
+  sightings.sort((a, b) => a.updatedAt.localeCompare(b.updatedAt) || a.id.localeCompare(b.id));
+  return visits.flatMap((visit) => {
+    const resendVisit = waiting(visit.outbox);
+    const toSend = sightings.filter((s) => s.visitId === visit.id && (resendVisit ? s.outbox !== "sent" : waiting(s.outbox)));
+    if (!resendVisit && toSend.length === 0) return [];
+    return [{ visit: resendVisit ? encode(visit, toVisitPayload(visit)) : null, sightings: toSend.map((s) => encode(s, toSightingPayload(s))) }];
+  });
+}
 
-    let response: Response;
-    try {
-      response = await fetcher("/api/field/sync", {
-        method: "POST",
-        credentials: "same-origin",
-        headers: { "Content-Type": "application/json" },
-        body: JSON.stringify({ visits: batch.map(toVisitPayload), sightings: sightings.map(toSightingPayload) }),
-      });
-    } catch {
-      await backToPhone(visitIds, sightings.map((s) => s.id));
-      run.offline = true;
-      return run;
-    }
-    if (response.status === 401) {
-      await backToPhone(visitIds, sightings.map((s) => s.id), "Sign in again to send these records.");
-      run.signedOut = true;
-      return run;
-    }
-    let body: SyncResponse | null = null;
-    try {
-      body = (await response.json()) as SyncResponse;
-    } catch {
-      body = null;
-    }
-    if (!body || !Array.isArray(body.results)) {
-      // A server error or an unexpected answer: keep everything and try again later.
-      await backToPhone(visitIds, sightings.map((s) => s.id), `The server could not take them just now (${response.status}); trying again soon.`);
-      run.offline = true;
-      return run;
-    }
-    await applyResults(body.results, batch, sightings, run);
+type SyncAnswer =
+  | { kind: "results"; results: ItemResult[] }
+  | { kind: "signed-out" }
+  | { kind: "retry"; note: string }
+  | { kind: "refused"; message: string };
+
+async function readSyncAnswer(response: Response): Promise<SyncAnswer> {
+  if (response.status === 401) return { kind: "signed-out" };
+  if (isPassingFault(response.status)) return { kind: "retry", note: `The server could not take them just now (${response.status}); trying again soon.` };
+  const body = (await response.clone().json().catch(() => null)) as Partial<SyncResponse> | null;
+  if (body && Array.isArray(body.results)) return { kind: "results", results: body.results };
+  if (response.status >= 400) {
+    // A refusal of the whole batch (malformed, too large): sending it again would meet the same answer.
+    const { message } = await readServerError(response);
+    return { kind: "refused", message: message ?? `The server refused these records (${response.status}).` };
   }
-  await sendPhotos(fetcher, run);
+  // A 2xx that is not our answer (a Wi-Fi sign-in page, say): nothing was confirmed, try later.
+  return { kind: "retry", note: "The server's answer could not be read; trying again soon." };
+}
+
+/**
+ * One pass of the outbox for the signed-in volunteer: sends their submitted visits with their
+ * sightings in batches within the server's limits, then their photos. Items move on-phone ->
+ * sending -> sent, or to needs-attention with the server's reason. No signal or a server fault
+ * leaves everything on the phone and asks for a retry; a 401 keeps everything and asks the
+ * volunteer to sign in again.
+ */
+export async function runOutbox(userId: string, fetcher: typeof fetch = fetch): Promise<OutboxRun> {
+  const run: OutboxRun = { sent: 0, needsAttention: 0, keptOnServer: 0, offline: false, signedOut: false, retryLater: false };
+  await claimUnownedVisits(userId);
+  const batches = planBatches(await pendingGroups(userId), OUTBOX_LIMITS);
+  // Visits that needed attention in an earlier batch: their later sightings wait with them.
+  const held = new Set<string>();
+  for (const planned of batches) {
+    const batch: OutboxBatch = { ...planned, sightings: planned.sightings.filter((s) => !held.has(s.item.visitId)) };
+    if (!batch.visits.length && !batch.sightings.length) continue;
+    if ((await sendBatch(batch, fetcher, run, held)) === "stop") return run;
+  }
+  await sendPhotos(fetcher, run, userId);
   return run;
 }
 
-/** Leaves items on the phone for the next pass, with a note the outbox can show. */
-async function backToPhone(visitIds: string[], sightingIds: string[], note?: string) {
+async function sendBatch(batch: OutboxBatch, fetcher: typeof fetch, run: OutboxRun, held: Set<string>): Promise<"next" | "stop"> {
   const db = fieldDb();
+  const visitIds = batch.visits.map((v) => v.item.id);
+  const sightingIds = batch.sightings.map((s) => s.item.id);
   await db.transaction("rw", db.visits, db.sightings, async () => {
-    await db.visits.where("id").anyOf(visitIds).modify((v) => {
-      v.outbox = "on-phone";
-      v.attention = note ?? null;
-      v.attempts += 1;
-    });
-    await db.sightings.where("id").anyOf(sightingIds).modify({ outbox: "on-phone" });
+    await db.visits.where("id").anyOf(visitIds).modify({ outbox: "sending" });
+    await setSightings(sightingIds, { outbox: "sending" });
   });
+
+  let answer: SyncAnswer;
+  try {
+    const response = await fetcher("/api/field/sync", {
+      method: "POST",
+      credentials: "same-origin",
+      headers: { "Content-Type": "application/json" },
+      body: batchBody(batch),
+    });
+    answer = await readSyncAnswer(response);
+  } catch {
+    await backToPhone(visitIds, sightingIds);
+    run.offline = true;
+    run.retryLater = true;
+    return "stop";
+  }
+  switch (answer.kind) {
+    case "signed-out":
+      await backToPhone(visitIds, sightingIds, SIGN_IN_AGAIN);
+      run.signedOut = true;
+      return "stop";
+    case "retry":
+      await backToPhone(visitIds, sightingIds, answer.note);
+      run.retryLater = true;
+      return "stop";
+    case "refused":
+      await refuseBatch(batch, answer.message, run, held);
+      return "next";
+    case "results":
+      await applyResults(answer.results, batch, run, held);
+      return "next";
+  }
 }
 
-async function applyResults(results: ItemResult[], visits: LocalVisit[], sightings: LocalSighting[], run: OutboxRun) {
+export type UnsentOnPhone = { visits: number; sightings: number; photos: number };
+
+/** What this volunteer has on the phone that the server does not have yet, drafts included. */
+export async function unsentOnPhone(userId: string): Promise<UnsentOnPhone> {
   const db = fieldDb();
-  const byKey = new Map(results.map((r) => [`${r.kind}:${r.index}`, r]));
-  await db.transaction("rw", db.visits, db.sightings, async () => {
-    for (const [index, v] of visits.entries()) {
-      const r = byKey.get(`visit:${index}`);
-      if (r && settledStatuses.includes(r.status)) {
-        await db.visits.update(v.id, { outbox: "sent", attention: null });
-        run.sent++;
-      } else {
-        await db.visits.update(v.id, { outbox: "needs-attention", attention: r ? describe(r) : "The server did not answer for this visit." });
-        run.needsAttention++;
-      }
-    }
-    for (const [index, s] of sightings.entries()) {
-      const r = byKey.get(`sighting:${index}`);
-      if (r && settledStatuses.includes(r.status)) {
-        await db.sightings.update(s.id, { outbox: "sent", attention: null });
-        run.sent++;
-      } else {
-        await db.sightings.update(s.id, { outbox: "needs-attention", attention: r ? describe(r) : "no answer for this record" });
-        run.needsAttention++;
-        // The visit is not done until all its sightings are.
-        await db.visits.update(s.visitId, { outbox: "needs-attention", attention: "A record in this visit needs attention." });
-      }
-    }
-  });
+  const visits = (await db.visits.toArray()).filter((v) => belongsTo(v, userId));
+  const visitIds = visits.map((v) => v.id);
+  const [sightings, photos] = await Promise.all([
+    db.sightings.where("visitId").anyOf(visitIds).toArray(),
+    db.photos.where("visitId").anyOf(visitIds).toArray(),
+  ]);
+  const unsent = (items: { outbox: OutboxState }[]) => items.filter((i) => i.outbox !== "sent").length;
+  return { visits: unsent(visits), sightings: unsent(sightings), photos: unsent(photos) };
+}
+
+/** The volunteer has read that the server kept its copy; the note can go. */
+export async function acknowledgeKeptOnServer(visitId: string): Promise<void> {
+  await fieldDb().visits.update(visitId, { keptOnServer: null });
 }

@@ -1,65 +1,93 @@
-import type { PhotoUploadTicket } from "@/lib/photos/contract";
+import { photoErrorCodes, type PhotoUploadTicket } from "@/lib/photos/contract";
 import { fieldDb, type LocalPhoto } from "./db";
 import type { OutboxRun } from "./outbox";
+import { isPassingFault, readServerError } from "./server-answers";
 
-async function readError(res: Response): Promise<{ code: string | null; message: string }> {
-  try {
-    const body = (await res.json()) as { error?: { code?: string; message?: string } };
-    return { code: body.error?.code ?? null, message: body.error?.message ?? `The server refused the photo (${res.status}).` };
-  } catch {
-    return { code: null, message: `The server refused the photo (${res.status}).` };
-  }
+/**
+ * How one photo's upload ended: sent; a passing fault (server or store error, upload lost) to
+ * retry later; signed out; or refused by the server for good (wrong type, too large...).
+ */
+type Outcome = { kind: "sent" } | { kind: "retry"; note: string } | { kind: "signed-out" } | { kind: "refused"; reason: string };
+
+const retryNote = (status: number) => `Not sent yet: the server could not take it just now (${status}); trying again soon.`;
+
+async function refusalOrRetry(res: Response): Promise<Outcome> {
+  if (res.status === 401) return { kind: "signed-out" };
+  if (isPassingFault(res.status)) return { kind: "retry", note: retryNote(res.status) };
+  const error = await readServerError(res);
+  // Completion before the file reached the store: upload it again.
+  if (error.code === photoErrorCodes.notUploaded) return { kind: "retry", note: "The upload did not arrive; sending it again soon." };
+  return { kind: "refused", reason: error.message ?? `The server refused this photo (${res.status}).` };
 }
 
-type Step = { ok: true } | { ok: false; retry: boolean; reason: string };
-
-/** Ticket, upload straight to the object store, then ask the server to check and process it. */
-async function sendOne(fetcher: typeof fetch, photo: LocalPhoto): Promise<Step> {
+/**
+ * Ticket, upload straight to the object store, then ask the server to check and process it.
+ * A thrown error means the network failed; the caller keeps the photo for the next pass.
+ */
+async function sendOne(fetcher: typeof fetch, photo: LocalPhoto): Promise<Outcome> {
   const ticketRes = await fetcher("/api/field/photos", {
     method: "POST",
     credentials: "same-origin",
     headers: { "Content-Type": "application/json" },
     body: JSON.stringify({ id: photo.id, visitId: photo.visitId, sightingId: photo.sightingId, contentType: photo.contentType, bytes: photo.bytes }),
   });
-  if (ticketRes.status === 409) return { ok: true }; // the server already has it, processed
-  if (!ticketRes.ok) return { ok: false, retry: ticketRes.status >= 500 || ticketRes.status === 401, reason: (await readError(ticketRes)).message };
+  if (ticketRes.status === 409) return { kind: "sent" }; // the server already has it, processed
+  if (!ticketRes.ok) return refusalOrRetry(ticketRes);
   const ticket = (await ticketRes.json()) as PhotoUploadTicket;
   const put = await fetcher(ticket.uploadUrl, { method: "PUT", headers: ticket.headers, body: photo.blob });
-  if (!put.ok) return { ok: false, retry: true, reason: `The photo store answered ${put.status}; trying again soon.` };
+  // The store's refusals (an expired link, a hiccup) pass with a fresh ticket on the next pass.
+  if (!put.ok) return { kind: "retry", note: `The photo store answered ${put.status}; trying again soon.` };
   const done = await fetcher(`/api/field/photos/${photo.id}/complete`, { method: "POST", credentials: "same-origin" });
-  if (done.ok) return { ok: true };
-  const error = await readError(done);
-  // The upload got lost on the way: keep the photo and upload it again on the next pass.
-  const lost = error.code === "photo_not_uploaded";
-  return { ok: false, retry: lost || done.status >= 500 || done.status === 401, reason: error.message };
+  return done.ok ? { kind: "sent" } : refusalOrRetry(done);
 }
 
-/** Sends photos whose visit the server already has. Network failures leave them on the phone. */
-export async function sendPhotos(fetcher: typeof fetch, run: OutboxRun): Promise<void> {
+/**
+ * Sends this volunteer's photos whose visit (and sighting) the server already has. A network
+ * failure or 401 stops the pass; a passing fault on one photo asks for a retry and moves on.
+ */
+export async function sendPhotos(fetcher: typeof fetch, run: OutboxRun, userId: string): Promise<void> {
   const db = fieldDb();
   const waiting = (await db.photos.toArray()).filter((p) => p.outbox === "on-phone" || p.outbox === "sending");
   for (const photo of waiting) {
     const visit = await db.visits.get(photo.visitId);
     const sighting = photo.sightingId ? await db.sightings.get(photo.sightingId) : null;
-    if (visit?.outbox !== "sent" || (sighting && sighting.outbox !== "sent")) continue;
+    if (visit?.ownerId !== userId || visit.outbox !== "sent" || (sighting && sighting.outbox !== "sent")) continue;
     await db.photos.update(photo.id, { outbox: "sending" });
-    let step: Step;
+    let outcome: Outcome;
     try {
-      step = await sendOne(fetcher, photo);
+      outcome = await sendOne(fetcher, photo);
     } catch {
       await db.photos.update(photo.id, { outbox: "on-phone", attempts: photo.attempts + 1 });
       run.offline = true;
+      run.retryLater = true;
       return;
     }
-    if (step.ok) {
-      // The server keeps the photo now; free the phone's storage.
-      await db.photos.update(photo.id, { outbox: "sent", attention: null, blob: new Blob([], { type: photo.contentType }) });
-      run.sent++;
-    } else if (step.retry) {
-      await db.photos.update(photo.id, { outbox: "on-phone", attention: step.reason, attempts: photo.attempts + 1 });
-    } else {
-      await db.photos.update(photo.id, { outbox: "needs-attention", attention: step.reason });
-      run.needsAttention++;
+    switch (outcome.kind) {
+      case "sent":
+        // The server keeps the photo now; free the phone's storage.
+        await db.photos.update(photo.id, { outbox: "sent", attention: null, blob: new Blob([], { type: photo.contentType }) });
+        run.sent++;
+        break;
+      case "retry":
+        await db.photos.update(photo.id, { outbox: "on-phone", attention: outcome.note, attempts: photo.attempts + 1 });
+        run.retryLater = true;
+        break;
+      case "signed-out":
+        await db.photos.update(photo.id, { outbox: "on-phone", attention: "Sign in again to send this photo." });
+        run.signedOut = true;
+        return;
+      case "refused":
+        await db.photos.update(photo.id, { outbox: "needs-attention", attention: outcome.reason });
+        run.needsAttention++;
+        break;
     }
   }
+}
+
+/** Removes a photo the server refused for good (it will never upload) from this phone. */
+export async function removeRefusedPhoto(photoId: string): Promise<void> {
+  const photos = fieldDb().photos;
+  const photo = await photos.get(photoId);
+  if (photo?.outbox !== "needs-attention") throw new Error("Only a photo the server refused can be removed here.");
+  await photos.delete(photoId);
 }

@@ -1,59 +1,11 @@
 import "fake-indexeddb/auto";
 import { beforeEach, describe, expect, it } from "vitest";
-import { FieldDatabase, fieldDb, setFieldDb } from "@/lib/offline/db";
+import { FieldDatabase, fieldDb, setFieldDb, setFieldUser } from "@/lib/offline/db";
 import { runOutbox } from "@/lib/offline/outbox";
 import { addPhoto, addSighting, createVisit, submitVisit } from "@/lib/offline/records";
-import { batchStatus, sightingPayload, visitPayload, type ItemResult } from "@/lib/sync/contract";
+import { fakeServer } from "./fake-sync-server";
 
-/**
- * A small stand-in for the server that keeps what it is sent by id and answers with the
- * shared contract (validation by the same zod schemas). It records every request.
- */
-function fakeServer(options: { down?: boolean; status401?: boolean; forbidTransect?: string } = {}) {
-  const visits = new Map<string, unknown>();
-  const sightings = new Map<string, unknown>();
-  const photos = new Set<string>();
-  const requests: string[] = [];
-  const fetcher = (async (input: RequestInfo | URL, init?: RequestInit) => {
-    const url = String(input);
-    requests.push(`${init?.method ?? "GET"} ${url}`);
-    if (options.down) throw new TypeError("Failed to fetch");
-    if (options.status401) return new Response(JSON.stringify({ error: { code: "unauthorized" } }), { status: 401 });
-    if (url === "/api/field/sync") {
-      const body = JSON.parse(String(init?.body)) as { visits: unknown[]; sightings: unknown[] };
-      const results: ItemResult[] = [];
-      body.visits.forEach((raw, index) => {
-        const parsed = visitPayload.safeParse(raw);
-        if (!parsed.success) return results.push({ kind: "visit", id: null, index, status: "invalid", errors: { _: [parsed.error.issues[0]!.message] } });
-        if (parsed.data.transectId === options.forbidTransect) return results.push({ kind: "visit", id: parsed.data.id, index, status: "forbidden", reason: "Not your transect." });
-        const existed = visits.has(parsed.data.id);
-        visits.set(parsed.data.id, parsed.data);
-        results.push({ kind: "visit", id: parsed.data.id, index, status: existed ? "unchanged" : "created" });
-      });
-      body.sightings.forEach((raw, index) => {
-        const parsed = sightingPayload.safeParse(raw);
-        if (!parsed.success) return results.push({ kind: "sighting", id: null, index, status: "invalid", errors: { count: [parsed.error.issues[0]!.message] } });
-        const existed = sightings.has(parsed.data.id);
-        sightings.set(parsed.data.id, parsed.data);
-        results.push({ kind: "sighting", id: parsed.data.id, index, status: existed ? "unchanged" : "created" });
-      });
-      return new Response(JSON.stringify({ results, serverTime: new Date().toISOString() }), { status: batchStatus(results) });
-    }
-    if (url === "/api/field/photos") {
-      const { id } = JSON.parse(String(init?.body)) as { id: string };
-      return new Response(JSON.stringify({ id, uploadUrl: `http://store.test/${id}`, headers: {}, expiresAt: new Date().toISOString() }), { status: 201 });
-    }
-    if (url.startsWith("http://store.test/")) return new Response(null, { status: 200 });
-    const complete = url.match(/^\/api\/field\/photos\/(.+)\/complete$/);
-    if (complete) {
-      photos.add(complete[1]!);
-      return new Response(JSON.stringify({ photo: { id: complete[1], status: "ready", width: 1, height: 1 } }), { status: 200 });
-    }
-    return new Response("not found", { status: 404 });
-  }) as typeof fetch;
-  return { fetcher, visits, sightings, photos, requests };
-}
-
+const userId = "3d5e7f90-1a2b-4c3d-8e4f-5a6b7c8d9e0f";
 const transectId = "6f1c1f7e-2b7a-4c1e-9a55-5d2f0c7b9a10";
 const speciesId = "0b6f7a3c-8a35-4f3e-b6a4-1f2a3b4c5d6e";
 
@@ -66,47 +18,72 @@ async function recordVisit(sightingCount: number, tId = transectId) {
   return { visitId, sightingIds: ids };
 }
 
+const submit = (visitId: string) => submitVisit(visitId, { endTime: "11:30", completeList: true, notes: null });
+
 describe("the outbox", () => {
   beforeEach(async () => {
     const db = new FieldDatabase(`test-${crypto.randomUUID()}`);
     setFieldDb(db);
+    setFieldUser(userId);
     await db.open();
   });
 
   it("drafts never leave the phone; a submitted visit does", async () => {
     const server = fakeServer();
     const { visitId } = await recordVisit(2);
-    await runOutbox(server.fetcher);
+    await runOutbox(userId, server.fetcher);
     expect(server.visits.size).toBe(0);
-    await submitVisit(visitId, { endTime: "11:30", completeList: true, notes: null });
-    const run = await runOutbox(server.fetcher);
+    await submit(visitId);
+    const run = await runOutbox(userId, server.fetcher);
     expect(run.sent).toBe(3);
     expect(server.visits.size).toBe(1);
     expect(server.sightings.size).toBe(2);
     expect((await fieldDb().visits.get(visitId))?.outbox).toBe("sent");
   });
 
-  it("with no network, keeps everything on the phone and reports offline", async () => {
+  it("with no network, keeps everything on the phone, reports offline and asks for a retry", async () => {
     const { visitId, sightingIds } = await recordVisit(5);
-    await submitVisit(visitId, { endTime: "11:30", completeList: true, notes: null });
-    const run = await runOutbox(fakeServer({ down: true }).fetcher);
-    expect(run.offline).toBe(true);
+    await submit(visitId);
+    const run = await runOutbox(userId, fakeServer({ down: true }).fetcher);
+    expect(run).toMatchObject({ offline: true, retryLater: true });
     expect((await fieldDb().visits.get(visitId))?.outbox).toBe("on-phone");
     const kept = await fieldDb().sightings.bulkGet(sightingIds);
     expect(kept.every((s) => s?.outbox === "on-phone")).toBe(true);
   });
 
-  it("resending after a pass that died mid-request stores nothing twice", async () => {
+  it("creates each record exactly once when an answer is lost and the batch is sent again", async () => {
+    const server = fakeServer({ loseSyncAnswers: 1 });
+    const { visitId, sightingIds } = await recordVisit(3);
+    await submit(visitId);
+
+    const first = await runOutbox(userId, server.fetcher);
+    // The server stored the batch, but the phone never heard: it keeps everything and retries.
+    expect(first.retryLater).toBe(true);
+    expect(server.writes).toHaveLength(4);
+    expect((await fieldDb().visits.get(visitId))?.outbox).toBe("on-phone");
+
+    const second = await runOutbox(userId, server.fetcher);
+    expect(second.sent).toBe(4);
+    expect(server.answers).toHaveLength(2);
+    expect(server.answers[1]!.map((r) => r.status)).toEqual(["unchanged", "unchanged", "unchanged", "unchanged"]);
+    const createdIds = server.writes.filter((w) => w.op === "create").map((w) => w.id);
+    expect(createdIds.sort()).toEqual([visitId, ...sightingIds].sort());
+    expect(server.writes.filter((w) => w.op === "update")).toEqual([]);
+    expect((await fieldDb().visits.get(visitId))?.outbox).toBe("sent");
+  });
+
+  it("resends items a closed tab left 'sending' without storing anything twice", async () => {
     const server = fakeServer();
     const { visitId } = await recordVisit(3);
-    await submitVisit(visitId, { endTime: "11:30", completeList: false, notes: null });
-    await runOutbox(server.fetcher);
-    // Simulate a tab closed before the answer arrived: the phone still thinks it is sending.
+    await submit(visitId);
+    await runOutbox(userId, server.fetcher);
+    // A tab closed before the answer arrived: the phone still thinks it is sending.
     await fieldDb().visits.update(visitId, { outbox: "sending" });
     await fieldDb().sightings.where("visitId").equals(visitId).modify({ outbox: "sending" });
-    await runOutbox(server.fetcher);
-    expect(server.visits.size).toBe(1);
-    expect(server.sightings.size).toBe(3);
+    await runOutbox(userId, server.fetcher);
+    expect(server.answers[1]!.every((r) => r.status === "unchanged")).toBe(true);
+    expect(server.writes.filter((w) => w.op === "create")).toHaveLength(4);
+    expect(new Set(server.writes.map((w) => w.id)).size).toBe(server.writes.length);
     expect((await fieldDb().visits.get(visitId))?.outbox).toBe("sent");
   });
 
@@ -114,31 +91,105 @@ describe("the outbox", () => {
     const server = fakeServer({ forbidTransect: "11111111-1111-4111-8111-111111111111" });
     const bad = await recordVisit(1, "11111111-1111-4111-8111-111111111111");
     const good = await recordVisit(1);
-    await submitVisit(bad.visitId, { endTime: "11:30", completeList: false, notes: null });
-    await submitVisit(good.visitId, { endTime: "11:30", completeList: false, notes: null });
-    await runOutbox(server.fetcher);
+    await submit(bad.visitId);
+    await submit(good.visitId);
+    await runOutbox(userId, server.fetcher);
     const badVisit = await fieldDb().visits.get(bad.visitId);
     expect(badVisit?.outbox).toBe("needs-attention");
     expect(badVisit?.attention).toMatch(/Not your transect/);
     expect((await fieldDb().visits.get(good.visitId))?.outbox).toBe("sent");
   });
 
-  it("when signed out, keeps the records and says to sign in again", async () => {
+  it("when signed out, keeps the records, says to sign in again and does not ask for a timed retry", async () => {
     const { visitId } = await recordVisit(1);
-    await submitVisit(visitId, { endTime: "11:30", completeList: false, notes: null });
-    const run = await runOutbox(fakeServer({ status401: true }).fetcher);
-    expect(run.signedOut).toBe(true);
+    await submit(visitId);
+    const run = await runOutbox(userId, fakeServer({ status401: true }).fetcher);
+    expect(run).toMatchObject({ signedOut: true, retryLater: false });
     const visit = await fieldDb().visits.get(visitId);
     expect(visit?.outbox).toBe("on-phone");
     expect(visit?.attention).toMatch(/Sign in again/);
   });
 
-  it("sends photos only after their visit, then frees the phone's copy", async () => {
+  it("keeps items on the phone after a server error and asks for a retry", async () => {
+    const server = fakeServer({ syncOverride: () => new Response("<html>Bad gateway</html>", { status: 502 }) });
+    const { visitId, sightingIds } = await recordVisit(2);
+    await submit(visitId);
+    const run = await runOutbox(userId, server.fetcher);
+    expect(run).toMatchObject({ retryLater: true, needsAttention: 0 });
+    expect((await fieldDb().visits.get(visitId))?.outbox).toBe("on-phone");
+    expect((await fieldDb().sightings.bulkGet(sightingIds)).map((s) => s?.outbox)).toEqual(["on-phone", "on-phone"]);
+  });
+
+  it("a 4xx without per-item results puts the batch in 'needs attention' with the server's message instead of retrying", async () => {
+    const message = "The sync batch is not in the expected shape.";
+    const server = fakeServer({ syncOverride: () => new Response(JSON.stringify({ error: { code: "invalid", message } }), { status: 400 }) });
+    const { visitId, sightingIds } = await recordVisit(2);
+    await submit(visitId);
+    const run = await runOutbox(userId, server.fetcher);
+    expect(run).toMatchObject({ retryLater: false, needsAttention: 3, sent: 0 });
+    const visit = await fieldDb().visits.get(visitId);
+    expect(visit).toMatchObject({ outbox: "needs-attention", attention: message });
+    expect((await fieldDb().sightings.bulkGet(sightingIds)).every((s) => s?.outbox === "needs-attention" && s.attention === message)).toBe(true);
+    // Not sent again on the next pass: it waits for the volunteer.
+    await runOutbox(userId, server.fetcher);
+    expect(server.bodies).toHaveLength(1);
+  });
+
+  it("a 413 without a readable body still says why, with its status", async () => {
+    const server = fakeServer({ syncOverride: () => new Response("Payload Too Large", { status: 413 }) });
+    const { visitId } = await recordVisit(1);
+    await submit(visitId);
+    await runOutbox(userId, server.fetcher);
+    expect(await fieldDb().visits.get(visitId)).toMatchObject({ outbox: "needs-attention", attention: expect.stringContaining("413") });
+  });
+
+  it("tells the volunteer when the server kept its reviewed copy, and does not count it as sent", async () => {
     const server = fakeServer();
+    const { visitId, sightingIds } = await recordVisit(2);
+    await submit(visitId);
+    await runOutbox(userId, server.fetcher);
+    // A checker reviews one sighting; the volunteer then corrects the visit and sends it again.
+    const reviewed = sightingIds[0]!;
+    const afterReview = fakeServer({ reviewed: new Set([reviewed]) });
+    afterReview.sightings.set(reviewed, "reviewed copy");
+    afterReview.visits.set(visitId, "server copy");
+    await fieldDb().visits.update(visitId, { outbox: "on-phone" });
+    await fieldDb().sightings.update(reviewed, { count: 40, outbox: "on-phone" });
+    const run = await runOutbox(userId, afterReview.fetcher);
+    expect(run.keptOnServer).toBe(1);
+    expect(run.sent).toBe(1); // the visit itself was updated
+    const visit = await fieldDb().visits.get(visitId);
+    expect(visit?.outbox).toBe("sent");
+    expect(visit?.keptOnServer).toEqual({ visit: false, sightings: 1 });
+    expect((await fieldDb().sightings.get(reviewed))?.outbox).toBe("sent");
+  });
+
+  it("refuses edits to a submitted visit", async () => {
+    const { visitId } = await recordVisit(1);
+    await submit(visitId);
+    await expect(addSighting(visitId, { speciesId, count: 1, section: null, latitude: null, longitude: null, accuracyMetres: null, note: null })).rejects.toThrow(/submitted/);
+  });
+});
+
+describe("photos in the outbox", () => {
+  beforeEach(async () => {
+    const db = new FieldDatabase(`test-${crypto.randomUUID()}`);
+    setFieldDb(db);
+    setFieldUser(userId);
+    await db.open();
+  });
+
+  async function visitWithPhoto() {
     const { visitId, sightingIds } = await recordVisit(1);
     const photoId = await addPhoto(visitId, sightingIds[0]!, new Blob([new Uint8Array(2048)], { type: "image/jpeg" }));
-    await submitVisit(visitId, { endTime: "11:30", completeList: false, notes: null });
-    await runOutbox(server.fetcher);
+    await submit(visitId);
+    return photoId;
+  }
+
+  it("sends photos only after their visit, then frees the phone's copy", async () => {
+    const server = fakeServer();
+    const photoId = await visitWithPhoto();
+    await runOutbox(userId, server.fetcher);
     const syncAt = server.requests.indexOf("POST /api/field/sync");
     const ticketAt = server.requests.indexOf("POST /api/field/photos");
     expect(syncAt).toBeGreaterThanOrEqual(0);
@@ -149,9 +200,73 @@ describe("the outbox", () => {
     expect(photo?.blob.size).toBe(0);
   });
 
-  it("refuses edits to a submitted visit", async () => {
-    const { visitId } = await recordVisit(1);
-    await submitVisit(visitId, { endTime: "11:30", completeList: false, notes: null });
-    await expect(addSighting(visitId, { speciesId, count: 1, section: null, latitude: null, longitude: null, accuracyMetres: null, note: null })).rejects.toThrow(/submitted/);
+  it.each([
+    ["a server error on the ticket", "ticket", 503],
+    ["a failed PUT to the store", "put", 500],
+    ["a store refusing an expired link", "put", 403],
+    ["a server error on completion", "complete", 500],
+  ] as const)("keeps the photo and asks for a retry after %s", async (_what, step, status) => {
+    let failing = true;
+    const server = fakeServer({ photoOverride: (s) => (failing && s === step ? new Response("fault", { status }) : undefined) });
+    const photoId = await visitWithPhoto();
+    const run = await runOutbox(userId, server.fetcher);
+    expect(run.retryLater).toBe(true);
+    expect(await fieldDb().photos.get(photoId)).toMatchObject({ outbox: "on-phone", attempts: 1 });
+    failing = false;
+    const retry = await runOutbox(userId, server.fetcher);
+    expect(retry.retryLater).toBe(false);
+    expect((await fieldDb().photos.get(photoId))?.outbox).toBe("sent");
+  });
+
+  it("keeps the photo and asks for a retry when the network fails mid-upload", async () => {
+    const photoId = await visitWithPhoto();
+    const server = fakeServer();
+    const dropped = await runOutbox(userId, fakeServer({ photoOverride: () => { throw new TypeError("Failed to fetch"); } }).fetcher);
+    expect(dropped).toMatchObject({ offline: true, retryLater: true });
+    expect((await fieldDb().photos.get(photoId))?.outbox).toBe("on-phone");
+    const run = await runOutbox(userId, server.fetcher);
+    expect(run.sent).toBe(1);
+    expect(server.photos.has(photoId)).toBe(true);
+  });
+
+  it("uploads again when completion says the file never arrived", async () => {
+    let lost = true;
+    const server = fakeServer({
+      photoOverride: (step) => (lost && step === "complete" ? new Response(JSON.stringify({ error: { code: "photo_not_uploaded", message: "Upload the file first." } }), { status: 400 }) : undefined),
+    });
+    const photoId = await visitWithPhoto();
+    expect((await runOutbox(userId, server.fetcher)).retryLater).toBe(true);
+    lost = false;
+    await runOutbox(userId, server.fetcher);
+    expect(server.requests.filter((r) => r.startsWith("PUT http://store.test/"))).toHaveLength(2);
+    expect((await fieldDb().photos.get(photoId))?.outbox).toBe("sent");
+  });
+
+  it.each([
+    ["the ticket", "ticket", { code: "invalid", message: "Some fields need attention.", fields: { bytes: ["Photos can be at most 15 MB."] } }, /at most 15 MB/],
+    ["the completion", "complete", { code: "photo_refused", message: "This is not a photo we can use (HEIC from this phone)." }, /not a photo we can use/],
+  ] as const)("shows a photo refused on %s with the server's reason and stops sending it", async (_what, step, error, reason) => {
+    const server = fakeServer({ photoOverride: (s) => (s === step ? new Response(JSON.stringify({ error }), { status: 400 }) : undefined) });
+    const photoId = await visitWithPhoto();
+    const run = await runOutbox(userId, server.fetcher);
+    expect(run).toMatchObject({ needsAttention: 1, retryLater: false });
+    const photo = await fieldDb().photos.get(photoId);
+    expect(photo?.outbox).toBe("needs-attention");
+    expect(photo?.attention).toMatch(reason);
+    const before = server.requests.length;
+    await runOutbox(userId, server.fetcher);
+    expect(server.requests.length).toBe(before);
+  });
+
+  it("lets the volunteer remove a refused photo from the phone, and only a refused one", async () => {
+    const { removeRefusedPhoto } = await import("@/lib/offline/photo-upload");
+    const server = fakeServer({ photoOverride: (s) => (s === "complete" ? new Response(JSON.stringify({ error: { code: "photo_refused", message: "Too many pixels." } }), { status: 400 }) : undefined) });
+    const refused = await visitWithPhoto();
+    await runOutbox(userId, server.fetcher);
+    const waiting = await visitWithPhoto();
+    await expect(removeRefusedPhoto(waiting)).rejects.toThrow(/refused/);
+    await removeRefusedPhoto(refused);
+    expect(await fieldDb().photos.get(refused)).toBeUndefined();
+    expect(await fieldDb().photos.get(waiting)).toBeDefined();
   });
 });
