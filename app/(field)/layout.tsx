@@ -13,7 +13,7 @@ export default async function FieldLayout({ children }: { children: React.ReactN
         { href: "/safety", label: "Safety" },
       ]}
     >
-      <FieldProviders>{children}</FieldProviders>
+      <FieldProviders userId={actor.id}>{children}</FieldProviders>
     </AppShell>
   );
 }

@@ -1,8 +1,9 @@
 "use client";
 
 import { SafetyNotice } from "@/components/safety/safety-notice";
-import { fieldDb } from "@/lib/offline/db";
+import { belongsTo, fieldDb } from "@/lib/offline/db";
 import type { FieldReference } from "@/lib/offline/reference";
+import { useFieldUserId } from "./field-providers";
 import { OutboxPanel } from "./outbox-panel";
 import { useLive } from "./use-live";
 import { useFieldReference } from "./use-reference";
@@ -10,13 +11,15 @@ import { useFieldReference } from "./use-reference";
 /** The volunteer's home: their transects, drafts in progress, the outbox, the safety notice. */
 export function FieldHome({ firstName, initial }: { firstName: string; initial?: FieldReference }) {
   const reference = useFieldReference(initial);
+  const userId = useFieldUserId();
   const local = useLive(async () => {
-    const visits = await fieldDb().visits.toArray();
+    // Only the signed-in volunteer's visits: a shared phone may hold someone else's too.
+    const visits = (await fieldDb().visits.toArray()).filter((v) => belongsTo(v, userId));
     return {
       drafts: visits.filter((v) => v.phase === "draft").sort((a, b) => b.updatedAt.localeCompare(a.updatedAt)),
       unsentByTransect: visits.filter((v) => v.phase === "submitted" && v.outbox !== "sent"),
     };
-  }, []);
+  }, [userId]);
   const data = reference.data;
   const season = data?.season;
 

@@ -1,8 +1,9 @@
 "use client";
 
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
-import { useEffect, useState } from "react";
+import { createContext, useContext, useEffect, useState } from "react";
 import { FIELD_PAGES_CACHE } from "@/lib/offline/cache-names";
+import { fieldUser, setFieldUser } from "@/lib/offline/db";
 import { startSyncController } from "@/lib/offline/sync-controller";
 
 // Field routes a volunteer may open with no signal: stored once online in the cache the
@@ -39,11 +40,29 @@ async function registerServiceWorker() {
   }
 }
 
-export function FieldProviders({ children }: { children: React.ReactNode }) {
+const FieldUserContext = createContext<string | null>(null);
+
+/** The signed-in volunteer's id, to show and send only their items on a shared phone. */
+export function useFieldUserId(): string | null {
+  return useContext(FieldUserContext);
+}
+
+/**
+ * `userId` comes from the server's session check in the field layout. It only chooses what
+ * this phone shows and sends: the server checks every item against the session.
+ */
+export function FieldProviders({ userId, children }: { userId: string; children: React.ReactNode }) {
   const [client] = useState(() => new QueryClient({ defaultOptions: { queries: { retry: 1, staleTime: 60_000, networkMode: "always" } } }));
+  // Set while rendering, not in an effect: the screens inside run their effects before this
+  // component's own, and new visits must carry their owner from the first one.
+  if (typeof window !== "undefined" && fieldUser() !== userId) setFieldUser(userId);
   useEffect(() => {
     void registerServiceWorker();
-    startSyncController();
   }, []);
-  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+  useEffect(() => startSyncController(userId), [userId]);
+  return (
+    <FieldUserContext.Provider value={userId}>
+      <QueryClientProvider client={client}>{children}</QueryClientProvider>
+    </FieldUserContext.Provider>
+  );
 }

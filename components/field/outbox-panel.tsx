@@ -1,8 +1,11 @@
 "use client";
 
 import { useEffect, useState } from "react";
-import { fieldDb, type OutboxState } from "@/lib/offline/db";
+import { belongsTo, fieldDb, type KeptOnServer, type OutboxState } from "@/lib/offline/db";
+import { acknowledgeKeptOnServer } from "@/lib/offline/outbox";
+import { removeRefusedPhoto } from "@/lib/offline/photo-upload";
 import { onSyncState, syncNow } from "@/lib/offline/sync-controller";
+import { useFieldUserId } from "./field-providers";
 import { useLive } from "./use-live";
 
 const stateLabel: Record<OutboxState, string> = {
@@ -12,9 +15,21 @@ const stateLabel: Record<OutboxState, string> = {
   "needs-attention": "Needs attention",
 };
 
+const plural = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;
+
+/** Our words for a `kept-server` answer: sent, but the phone's later edit was not applied. */
+export function keptOnServerNote(kept: KeptOnServer): string {
+  const what = [kept.visit ? "the visit details" : null, kept.sightings ? plural(kept.sightings, "sighting") : null].filter(Boolean).join(" and ");
+  return `Sent, but the server kept its own copy of ${what}: a record checker had already reviewed it, or it had a later change. Your later edits on this phone were not applied.`;
+}
+
+const clock = (at: number) => new Date(at).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" });
+
 /** What is waiting to leave the phone, what went, and what needs the volunteer. */
 export function OutboxPanel() {
+  const userId = useFieldUserId();
   const [syncing, setSyncing] = useState(false);
+  const [nextRetryAt, setNextRetryAt] = useState<number | null>(null);
   const [online, setOnline] = useState(true);
   useEffect(() => {
     setOnline(navigator.onLine);
@@ -22,7 +37,10 @@ export function OutboxPanel() {
     const down = () => setOnline(false);
     window.addEventListener("online", up);
     window.addEventListener("offline", down);
-    const off = onSyncState((s) => setSyncing(s.running));
+    const off = onSyncState((s) => {
+      setSyncing(s.running);
+      setNextRetryAt(s.nextRetryAt);
+    });
     return () => {
       window.removeEventListener("online", up);
       window.removeEventListener("offline", down);
@@ -31,20 +49,21 @@ export function OutboxPanel() {
   }, []);
   const items = useLive(async () => {
     const db = fieldDb();
-    const visits = (await db.visits.where("phase").equals("submitted").toArray()).sort((a, b) => b.visitDate.localeCompare(a.visitDate));
-    const sightings = await db.sightings.toArray();
-    const photos = await db.photos.toArray();
-    const submitted = new Set(visits.map((v) => v.id));
-    return {
-      visits,
-      sightings: sightings.filter((s) => submitted.has(s.visitId)),
-      photos: photos.filter((p) => submitted.has(p.visitId)),
-    };
-  }, []);
+    // Only this volunteer's items: a shared phone may hold someone else's too.
+    const visits = (await db.visits.where("phase").equals("submitted").toArray())
+      .filter((v) => belongsTo(v, userId))
+      .sort((a, b) => b.visitDate.localeCompare(a.visitDate));
+    const ids = visits.map((v) => v.id);
+    const [sightings, photos] = await Promise.all([db.sightings.where("visitId").anyOf(ids).toArray(), db.photos.where("visitId").anyOf(ids).toArray()]);
+    return { visits, sightings, photos };
+  }, [userId]);
 
   const all = items ? [...items.visits, ...items.sightings, ...items.photos] : [];
   const count = (state: OutboxState) => all.filter((i) => i.outbox === state).length;
   const waiting = count("on-phone") + count("sending");
+  const visitDate = (visitId: string) => items?.visits.find((v) => v.id === visitId)?.visitDate ?? "";
+  const refusedPhotos = items?.photos.filter((p) => p.outbox === "needs-attention") ?? [];
+  const keptNotes = items?.visits.filter((v) => v.keptOnServer && (v.keptOnServer.visit || v.keptOnServer.sightings > 0)) ?? [];
 
   return (
     <section aria-labelledby="outbox-heading" className="card" data-testid="outbox">
@@ -57,6 +76,7 @@ export function OutboxPanel() {
       <p className="mt-1" data-testid="outbox-summary">
         {waiting === 0 && count("needs-attention") === 0 ? "Everything is sent." : `${waiting} waiting to send.`}
         {syncing && " Sending now…"}
+        {!syncing && waiting > 0 && nextRetryAt && ` Trying again at ${clock(nextRetryAt)}.`}
       </p>
       <dl className="mt-2 grid grid-cols-2 gap-2 text-sm sm:grid-cols-4">
         {(Object.keys(stateLabel) as OutboxState[]).map((s) => (
@@ -78,6 +98,36 @@ export function OutboxPanel() {
                 )}
               </li>
             ))}
+        </ul>
+      )}
+      {refusedPhotos.length > 0 && (
+        <ul className="mt-3 space-y-2" aria-label="Photos the server refused">
+          {refusedPhotos.map((p) => (
+            <li key={p.id} className="rounded-lg border border-rust-700 bg-rust-100 p-2 text-sm text-rust-700" data-testid="refused-photo">
+              Photo from the visit on {visitDate(p.visitId)}: {p.attention} It cannot be sent.{" "}
+              <button
+                type="button"
+                className="font-bold underline"
+                onClick={() => {
+                  if (window.confirm("Remove this photo from this phone? The server will not take it.")) void removeRefusedPhoto(p.id);
+                }}
+              >
+                Remove it from this phone
+              </button>
+            </li>
+          ))}
+        </ul>
+      )}
+      {keptNotes.length > 0 && (
+        <ul className="mt-3 space-y-2" aria-label="Notes about sent visits">
+          {keptNotes.map((v) => (
+            <li key={v.id} role="note" className="rounded-lg border border-tideline-600 bg-tideline-50 p-2 text-sm" data-testid="kept-on-server">
+              Visit on {v.visitDate}: {keptOnServerNote(v.keptOnServer!)}{" "}
+              <button type="button" className="font-bold underline" onClick={() => void acknowledgeKeptOnServer(v.id)}>
+                Got it
+              </button>
+            </li>
+          ))}
         </ul>
       )}
       <button type="button" className="btn-quiet mt-3 w-full" onClick={() => void syncNow()} disabled={!online || syncing}>

@@ -24,7 +24,7 @@ export function AppShell({ actor, nav, children }: { actor: Actor; nav: NavItem[
             <br />
             <span className="font-bold text-shingle-800">{roleLabel[actor.role]}</span>
           </span>
-          <SignOutButton />
+          <SignOutButton phoneUserId={actor.role === "volunteer" ? actor.id : undefined} />
         </div>
         <nav aria-label="Main" className="mx-auto max-w-5xl overflow-x-auto px-2">
           <ul className="flex gap-1">
