@@ -1,8 +1,9 @@
 "use client";
 
-import { fieldDb } from "@/lib/offline/db";
+import { belongsTo, fieldDb } from "@/lib/offline/db";
 import { visitsStillOnPhone, type VisitOnPhone } from "@/lib/offline/records";
 import { REFERENCE_KEY, type FieldReference } from "@/lib/offline/reference";
+import { useFieldUserId } from "../field-providers";
 import { useLive } from "../use-live";
 
 /** Where a visit still on the phone stands, in the volunteer's words. */
@@ -20,10 +21,13 @@ export function phoneStateOf({ visit, photosWaiting }: VisitOnPhone): { label: s
 
 /** The visits on this phone that the server does not have yet: read from the phone alone, so it works offline. */
 export function VisitsOnPhone() {
+  const userId = useFieldUserId();
   const data = useLive(async () => {
     const [visits, reference] = await Promise.all([visitsStillOnPhone(), fieldDb().reference.get(REFERENCE_KEY)]);
-    return { visits, transects: (reference?.value as FieldReference | undefined)?.transects ?? [] };
-  }, []);
+    // Only the signed-in volunteer's visits: a shared phone may hold someone else's too.
+    const own = visits.filter((item) => belongsTo(item.visit, userId));
+    return { visits: own, transects: (reference?.value as FieldReference | undefined)?.transects ?? [] };
+  }, [userId]);
   if (!data || data.visits.length === 0) return null;
   return (
     <section aria-labelledby="on-phone-heading" className="card border-tideline-600" data-testid="visits-on-phone">
