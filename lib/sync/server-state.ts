@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq, getTableColumns, sql } from "drizzle-orm";
+import { eq, getTableColumns, sql } from "drizzle-orm";
 import type { BatchTx } from "./batch-transaction";
 import { seasons, sightings, species, transectAssignments, transects, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
@@ -11,7 +11,7 @@ export type SeasonSpan = { id: string; startsOn: string; endsOn: string };
 
 /** Everything one batch needs to know about the server, read in a fixed handful of queries. */
 export type ServerState = {
-  /** Section counts of the batch's transects that the volunteer is assigned to. */
+  /** Section counts of every transect the volunteer is assigned to (stored visits are checked too). */
   assigned: Map<string, number>;
   visits: Map<string, ServerVisit>;
   sightings: Map<string, ServerSighting>;
@@ -34,12 +34,14 @@ const reviewedSightingOfVisit = sql<boolean>`exists (select 1 from ${sightings} 
 export async function loadServerState(tx: BatchTx, actor: Actor, keys: StateKeys): Promise<ServerState> {
   const none = Promise.resolve([] as never[]);
   const [assignedRows, visitRows, sightingRows, speciesRows, seasonRows] = await Promise.all([
-    keys.transectIds.length
+    // All of the volunteer's assignments (a handful): a stored visit a sighting names may be on a
+    // transect none of the batch's visits mention, and it must still be assigned.
+    keys.transectIds.length || keys.visitIds.length
       ? tx
           .select({ id: transects.id, sectionCount: transects.sectionCount })
           .from(transectAssignments)
           .innerJoin(transects, eq(transects.id, transectAssignments.transectId))
-          .where(and(eq(transectAssignments.userId, actor.id), sql`${transectAssignments.transectId} = any(${uuidArray(keys.transectIds)})`))
+          .where(eq(transectAssignments.userId, actor.id))
           .prepare("sync_assigned")
           .execute()
       : none,

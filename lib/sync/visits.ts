@@ -88,10 +88,15 @@ export function planVisits(actor: Actor, items: Indexed<VisitPayload>[], state: 
   return { results, writes, standings };
 }
 
-/** A sighting's visit as seen from the server, for visits this batch did not carry (or carried invalid). */
+/**
+ * A sighting's visit as seen from the server, for visits this batch did not carry (or carried
+ * invalid). Like a visit in the batch, it takes sightings only while the volunteer is still
+ * assigned to its transect: once an assignment ends, the old visits take no more.
+ */
 export function serverStanding(actor: Actor, visitId: string, state: ServerState): VisitStanding {
   const server = state.visits.get(visitId);
   if (!server) return { kind: "unknown" };
   if (server.volunteerId !== actor.id) return { kind: "forbidden", reason: VISIT_REASONS.otherVolunteer };
+  if (!state.assigned.has(server.transectId)) return { kind: "forbidden", reason: VISIT_REASONS.notAssigned };
   return { kind: "own", sectionCount: server.sectionCount };
 }

@@ -1,5 +1,5 @@
 import { randomUUID } from "node:crypto";
-import { asc, count, eq, inArray, ne } from "drizzle-orm";
+import { and, asc, count, eq, inArray, ne } from "drizzle-orm";
 import { beforeEach, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { seasons, sightings, species, transectAssignments, transects, users, visits } from "@/db/schema";
@@ -346,6 +346,24 @@ describe("applying a sync batch from a volunteer's phone", () => {
     const { status, response } = await applySyncBatch(actor, { sightings: [s] });
     expect(status).toBe(200);
     expect(response.results[0]!.status).toBe("created");
+  });
+
+  it("refuses new sightings for a stored visit once the volunteer's assignment to its transect has ended", async () => {
+    const visit = visitOf(transect.id);
+    const first = sightingOf(visit.id, speciesIds[0]!);
+    await applySyncBatch(actor, { visits: [visit], sightings: [first] });
+    await db().delete(transectAssignments).where(and(eq(transectAssignments.userId, actor.id), eq(transectAssignments.transectId, transect.id)));
+
+    const late = sightingOf(visit.id, speciesIds[1]!);
+    const edit = { ...first, count: 30, clientUpdatedAt: "2026-05-15T09:00:00.000Z" };
+    const { status, response } = await applySyncBatch(actor, { sightings: [late, edit] });
+    expect(status).toBe(403);
+    expect(response.results).toEqual([
+      { kind: "sighting", id: late.id, index: 0, status: "forbidden", reason: "You are not assigned to that transect." },
+      { kind: "sighting", id: first.id, index: 1, status: "forbidden", reason: "You are not assigned to that transect." },
+    ]);
+    expect(await storedSighting(late.id)).toBeUndefined();
+    expect((await storedSighting(first.id))!.count).toBe(3);
   });
 
   it("the write guards leave alone rows reviewed or taken over after the batch read them", async () => {
