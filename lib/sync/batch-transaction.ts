@@ -27,7 +27,9 @@ export async function inBatchTransaction<T>(work: (tx: BatchTx, begun: Promise<u
   const connection = await sqlClient().reserve();
   try {
     // postgres-js sends a query when it is executed; the reads issued next share its write.
-    const begun = connection.unsafe("begin").execute();
+    // The batch's statements are prepared once per connection; left to choose, PostgreSQL re-plans
+    // them on every run (it cannot price `= any($1)` generically), which cost more than running them.
+    const begun = connection.unsafe("begin; set local plan_cache_mode = force_generic_plan").execute();
     begun.catch(() => undefined); // awaited by `work`; this only avoids an unhandled rejection
     const result = await work(queryBuilderOn(connection), begun).catch(async (error: unknown) => {
       await connection.unsafe("rollback").catch(() => undefined);
