@@ -1,4 +1,4 @@
-import { photoErrorCodes, type PhotoUploadTicket } from "@/lib/photos/contract";
+import { photoErrorCodes, type PhotoUploadTicket } from "@/lib/photos/protocol";
 import { fieldDb, type LocalPhoto } from "./db";
 import type { OutboxRun } from "./outbox";
 import { isPassingFault, readServerError } from "./server-answers";

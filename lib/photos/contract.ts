@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { MAX_PHOTO_BYTES } from "./protocol";
 
 // The wire format of the photo upload flow, shared by the phone and the server:
 // 1. POST /api/field/photos            { id, visitId, sightingId, contentType, bytes } -> { uploadUrl, headers, expiresAt }
@@ -10,9 +11,7 @@ import { z } from "zod";
 // 400 photo_not_uploaded (step 3 before the PUT landed: upload again), and
 // 409 photo_already_uploaded (step 1 for a photo that is already ready; step 3 then answers 200 again).
 
-export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
-export const MAX_PHOTO_PIXELS = 40_000_000;
-export const acceptedPhotoTypes = ["image/jpeg", "image/png", "image/webp", "image/heic", "image/heif"] as const;
+export * from "./protocol";
 
 export const photoUploadRequest = z.object({
   id: z.uuid({ message: "The photo id must be a UUID." }),
@@ -26,12 +25,3 @@ export const photoUploadRequest = z.object({
     .max(MAX_PHOTO_BYTES, { message: "Photos can be at most 15 MB." }),
 });
 export type PhotoUploadRequest = z.infer<typeof photoUploadRequest>;
-
-export type PhotoUploadTicket = { id: string; uploadUrl: string; headers: Record<string, string>; expiresAt: string };
-export type PhotoReady = { photo: { id: string; status: "ready"; width: number; height: number } };
-
-export const photoErrorCodes = {
-  refused: "photo_refused",
-  notUploaded: "photo_not_uploaded",
-  alreadyUploaded: "photo_already_uploaded",
-} as const;
