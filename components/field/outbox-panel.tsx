@@ -2,11 +2,13 @@
 
 import { useEffect, useState } from "react";
 import { belongsTo, fieldDb, type KeptOnServer, type OutboxState } from "@/lib/offline/db";
-import { acknowledgeKeptOnServer } from "@/lib/offline/outbox";
-import { removeRefusedPhoto } from "@/lib/offline/photo-upload";
 import { onSyncState, syncNow } from "@/lib/offline/sync-controller";
 import { useFieldUserId } from "./field-providers";
 import { useLive } from "./use-live";
+
+// The sending code loads on demand (see lib/offline/sync-controller.ts); these rare actions fetch it too.
+const removeRefusedPhoto = async (photoId: string) => (await import("@/lib/offline/photo-upload")).removeRefusedPhoto(photoId);
+const acknowledgeKeptOnServer = async (visitId: string) => (await import("@/lib/offline/outbox")).acknowledgeKeptOnServer(visitId);
 
 const stateLabel: Record<OutboxState, string> = {
   "on-phone": "On this phone",

@@ -1,4 +1,5 @@
-import { runOutbox, type OutboxRun } from "./outbox";
+import type { OutboxRun } from "./outbox";
+import { hasWorkToSend } from "./pending-work";
 
 // Runs the outbox when the app starts, when the phone comes back online, when the app returns
 // to the foreground, and after failures with exponential backoff (5 s doubling to 5 min).
@@ -120,7 +121,15 @@ export function createSyncController(runPass: (userId: string) => Promise<Outbox
   return { start, stop, syncNow, onState };
 }
 
-const controller = createSyncController((userId) => runOutbox(userId));
+const nothingSent: OutboxRun = { sent: 0, needsAttention: 0, keptOnServer: 0, offline: false, signedOut: false, retryLater: false };
+
+// The sending code loads only when there is something to send (the service worker has it
+// precached for offline use); a failed load counts as a failed pass and is retried with backoff.
+const controller = createSyncController(async (userId) => {
+  if (!(await hasWorkToSend(userId))) return nothingSent;
+  const { runOutbox } = await import("./outbox");
+  return runOutbox(userId);
+});
 
 export const startSyncController = controller.start;
 export const syncNow = controller.syncNow;

@@ -119,7 +119,7 @@ describe("tap targets on the field screens (at least 44 x 44 px)", () => {
     expect(undersized(container)).toEqual([]);
     fireEvent.click(screen.getByRole("button", { name: "Back" }));
     fireEvent.click(screen.getByRole("button", { name: "+ Add a sighting" }));
-    fireEvent.change(screen.getByRole("searchbox", { name: "Species" }), { target: { value: "white" } });
+    fireEvent.change(await screen.findByRole("searchbox", { name: "Species" }, { timeout: 5000 }), { target: { value: "white" } }); // the form loads on first use
     expect(within(screen.getByRole("list", { name: "Matching species" })).getAllByRole("button").length).toBeGreaterThan(0);
     expect(undersized(container)).toEqual([]);
 

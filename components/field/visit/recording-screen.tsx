@@ -10,9 +10,11 @@ import { deleteDraftVisit, deleteSighting, returnToDraft, submitVisit } from "@/
 import { syncNow } from "@/lib/offline/sync-controller";
 import { useLive } from "../use-live";
 import { ConfirmButton } from "./confirm-button";
-import { SightingForm } from "./sighting-form";
 
 // The details form carries the form and validation libraries: loaded only when a volunteer corrects a visit.
+// Loaded on first use: the form is opened by a tap, and the service worker has every chunk
+// precached, so it opens offline too, while the screen's first load stays within its budget.
+const SightingForm = lazy(() => import("./sighting-form").then((m) => ({ default: m.SightingForm })));
 const StartVisitForm = lazy(() => import("./start-visit-form").then((m) => ({ default: m.StartVisitForm })));
 
 type Transect = { id: string; code: string; name: string; sectionCount: number; coastal: boolean };
@@ -205,15 +207,17 @@ export function RecordingScreen({
       </section>
 
       {draft && (adding || editing) && (
-        <SightingForm
-          key={editing?.id ?? "new"}
-          visitId={visitId}
-          checklist={checklist}
-          seenHere={seenByTransect[visit.transectId] ?? []}
-          sectionCount={transect?.sectionCount ?? 1}
-          editing={editing ?? undefined}
-          onDone={() => { setAdding(false); setEditing(null); }}
-        />
+        <Suspense fallback={<p role="status">Opening the form…</p>}>
+          <SightingForm
+            key={editing?.id ?? "new"}
+            visitId={visitId}
+            checklist={checklist}
+            seenHere={seenByTransect[visit.transectId] ?? []}
+            sectionCount={transect?.sectionCount ?? 1}
+            editing={editing ?? undefined}
+            onDone={() => { setAdding(false); setEditing(null); }}
+          />
+        </Suspense>
       )}
       {draft && !busy && (
         <div className="grid gap-2">
