@@ -12,7 +12,7 @@ import {
   type SyncResponse,
   type VisitPayload,
 } from "./contract";
-import { inBatchTransaction, type BatchTx } from "./batch-transaction";
+import { inBatchTransaction, type BatchTx, type BatchWork } from "./batch-transaction";
 import { parseItems, type ParsedItems } from "./parse";
 import { loadServerState } from "./server-state";
 import { planSightings } from "./sightings";
@@ -38,7 +38,7 @@ const byIndex = (a: ItemResult, b: ItemResult) => a.index - b.index;
 
 type ParsedBatch = { visits: ParsedItems<VisitPayload>; sightings: ParsedItems<SightingPayload> };
 
-async function applyInTransaction(tx: BatchTx, begun: Promise<unknown>, actor: Actor, batch: ParsedBatch): Promise<ItemResult[]> {
+async function applyInTransaction(tx: BatchTx, begun: Promise<unknown>, actor: Actor, batch: ParsedBatch): Promise<BatchWork<ItemResult[]>> {
   const { visits: parsedVisits, sightings: parsedSightings } = batch;
   const visitItems = parsedVisits.valid.map((v) => v.value);
   const sightingItems = parsedSightings.valid.map((s) => s.value);
@@ -57,18 +57,19 @@ async function applyInTransaction(tx: BatchTx, begun: Promise<unknown>, actor: A
   const standingOf = (visitId: string): VisitStanding => visitPlan.standings.get(visitId) ?? serverStanding(actor, visitId, state);
   const sightingPlan = planSightings(actor.id, parsedSightings.valid, state, standingOf);
 
-  // Sent together so they share one round trip: postgres-js runs a connection's queries in
-  // the order issued, so the visits still land before the sightings that reference them.
-  await Promise.all([
+  // Sent now, in this order, on the batch's connection (the visits land before the sightings
+  // that reference them); the COMMIT follows in the same network write.
+  const written = Promise.all([
     upsertVisits(tx, visitPlan.writes),
     upsertSightings(tx, actor.id, sightingPlan.writes),
     deletePendingSightings(tx, sightingPlan.deletes),
   ]);
 
-  return [
+  const value = [
     ...[...visitPlan.results, ...parsedVisits.rejected].sort(byIndex),
     ...[...sightingPlan.results, ...parsedSightings.rejected].sort(byIndex),
   ];
+  return { value, written };
 }
 
 /**

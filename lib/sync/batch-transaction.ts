@@ -15,14 +15,18 @@ function queryBuilderOn(connection: ReservedSql): BatchTx {
   return new PostgresJsDatabase(dialect, new PostgresJsSession(connection, dialect, undefined), undefined) as BatchTx;
 }
 
+/** What a batch's work hands back: its answer, and its writes, already sent but not yet done. */
+export type BatchWork<T> = { value: T; written: Promise<unknown> };
+
 /**
- * Runs one batch in a transaction on a connection of its own, sending BEGIN in the same network
- * write as the batch's first reads instead of waiting a round trip for it (drizzle's
- * `transaction()` awaits BEGIN first). `work` must await `begun` before it writes anything: if
- * BEGIN failed, only reads will have run outside a transaction. COMMIT is sent after `work`
- * returns, ROLLBACK if it throws.
+ * Runs one batch in a transaction on a connection of its own, in two round trips instead of
+ * four: BEGIN goes in the same network write as the batch's reads, and COMMIT in the same write
+ * as its writes. `work` must await `begun` before it writes anything (if BEGIN failed, only reads
+ * ran outside a transaction), and must have sent all its writes when it returns. A write that
+ * fails aborts the transaction in PostgreSQL, which then answers the queued COMMIT by rolling
+ * back; anything else that fails gets an explicit ROLLBACK.
  */
-export async function inBatchTransaction<T>(work: (tx: BatchTx, begun: Promise<unknown>) => Promise<T>): Promise<T> {
+export async function inBatchTransaction<T>(work: (tx: BatchTx, begun: Promise<unknown>) => Promise<BatchWork<T>>): Promise<T> {
   db(); // installs drizzle's type parsers on the pool before the first batch
   const connection = await sqlClient().reserve();
   try {
@@ -31,12 +35,17 @@ export async function inBatchTransaction<T>(work: (tx: BatchTx, begun: Promise<u
     // them on every run (it cannot price `= any($1)` generically), which cost more than running them.
     const begun = connection.unsafe("begin; set local plan_cache_mode = force_generic_plan").execute();
     begun.catch(() => undefined); // awaited by `work`; this only avoids an unhandled rejection
-    const result = await work(queryBuilderOn(connection), begun).catch(async (error: unknown) => {
+    try {
+      const { value, written } = await work(queryBuilderOn(connection), begun);
+      const committed = connection.unsafe("commit").execute();
+      const [, outcome] = await Promise.all([written, committed]);
+      // PostgreSQL answers COMMIT of an aborted transaction with ROLLBACK rather than an error.
+      if ((outcome as unknown as { command?: string }).command !== "COMMIT") throw new Error("the batch's transaction did not commit");
+      return value;
+    } catch (error) {
       await connection.unsafe("rollback").catch(() => undefined);
       throw error;
-    });
-    await connection.unsafe("commit");
-    return result;
+    }
   } finally {
     connection.release();
   }

@@ -13,8 +13,10 @@ const dialect = new PgDialect();
  * its parameters first: a second round trip per statement that also stops the connection's
  * pipeline. Prepared, the statement is parsed once per connection and pipelines with the rest.
  */
-export async function executePrepared<Row>(tx: BatchTx, query: SQL): Promise<Row[]> {
+export function executePrepared<Row>(tx: BatchTx, query: SQL): Promise<Row[]> {
   const { sql: text, params } = dialect.sqlToQuery(query);
   const { client } = tx._.session as unknown as PostgresJsSession<Sql, Record<string, never>, Record<string, never>>;
-  return (await client.unsafe(text, params as never[], { prepare: true })) as unknown as Row[];
+  // Sent at once (postgres-js otherwise waits for the first `then`), so statements reach the
+  // connection in call order: the batch's COMMIT is queued right behind its writes.
+  return client.unsafe(text, params as never[], { prepare: true }).execute() as unknown as Promise<Row[]>;
 }

@@ -9,10 +9,22 @@ import type { VisitRow } from "./visits";
 
 /** Raised when the database disagrees with what the batch read moments before: the batch is retried. */
 export class BatchRaced extends Error {
-  constructor(what: string) {
-    super(`sync batch raced with another writer on ${what}`);
+  constructor(what: string, options?: { cause?: unknown }) {
+    super(`sync batch raced with another writer on ${what}`, options);
     this.name = "BatchRaced";
   }
+}
+
+// Each write counts the rows it touched and hands the count to sync_expect_rows() (migration
+// 0001), which raises serialization_failure when a rule in the WHERE clause left a row out:
+// another writer got there after the batch's read. That aborts the transaction in PostgreSQL
+// itself, so the COMMIT queued behind the writes rolls back, and the batch is retried.
+async function guarded(what: string, expected: number, write: Promise<{ n: string | number }[]>): Promise<void> {
+  const rows = await write.catch((error: unknown) => {
+    if ((error as { code?: unknown }).code === "40001") throw new BatchRaced(what, { cause: error });
+    throw error;
+  });
+  if (Number(rows[0]?.n) !== expected) throw new BatchRaced(what); // unreachable while the guard function stands
 }
 
 // Rows travel as one JSON parameter unpacked by json_to_recordset: the statement text is the
@@ -21,8 +33,8 @@ export class BatchRaced extends Error {
 // The upserts repeat the conflict rules in their WHERE clauses, so a row another transaction
 // created or reviewed after our read is left alone; the short count then triggers a retry.
 
-export async function upsertVisits(tx: BatchTx, rows: VisitRow[]): Promise<void> {
-  if (!rows.length) return;
+export function upsertVisits(tx: BatchTx, rows: VisitRow[]): Promise<void> {
+  if (!rows.length) return Promise.resolve();
   const json = JSON.stringify(
     rows.map((v) => ({
       id: v.id, transect_id: v.transectId, volunteer_id: v.volunteerId, season_id: v.seasonId, visit_date: v.visitDate,
@@ -31,7 +43,8 @@ export async function upsertVisits(tx: BatchTx, rows: VisitRow[]): Promise<void>
       notes: v.notes, submitted_at: v.submittedAt, client_updated_at: v.clientUpdatedAt,
     })),
   );
-  const written = await executePrepared<{ id: string }>(tx, sql`
+  return guarded("visits", rows.length, executePrepared(tx, sql`
+    with written as (
     insert into ${visits} as cur (id, transect_id, volunteer_id, season_id, visit_date, start_time, end_time, temperature_c,
       wind_beaufort, cloud_cover_percent, sky, co_recorders, complete_list, notes, submitted_at, client_updated_at)
     select id, transect_id, volunteer_id, season_id, visit_date, start_time, end_time, temperature_c,
@@ -48,19 +61,20 @@ export async function upsertVisits(tx: BatchTx, rows: VisitRow[]): Promise<void>
     where cur.volunteer_id = excluded.volunteer_id
       and (cur.client_updated_at is null or cur.client_updated_at <= excluded.client_updated_at)
       and not exists (select 1 from ${sightings} s where s.visit_id = cur.id and (s.status <> 'pending' or s.reviewed_at is not null))
-    returning cur.id`);
-  if (written.length !== rows.length) throw new BatchRaced("visits");
+    returning cur.id)
+    select sync_expect_rows(count(*), ${rows.length}, 'visits') as n from written`));
 }
 
-export async function upsertSightings(tx: BatchTx, volunteerId: string, rows: SightingRow[]): Promise<void> {
-  if (!rows.length) return;
+export function upsertSightings(tx: BatchTx, volunteerId: string, rows: SightingRow[]): Promise<void> {
+  if (!rows.length) return Promise.resolve();
   const json = JSON.stringify(
     rows.map((s) => ({
       id: s.id, visit_id: s.visitId, species_id: s.speciesId, count: s.count, section: s.section, latitude: s.latitude,
       longitude: s.longitude, accuracy_metres: s.accuracyMetres, note: s.note, client_updated_at: s.clientUpdatedAt,
     })),
   );
-  const written = await executePrepared<{ id: string }>(tx, sql`
+  return guarded("sightings", rows.length, executePrepared(tx, sql`
+    with written as (
     insert into ${sightings} as cur (id, visit_id, species_id, count, section, latitude, longitude, accuracy_metres, note, client_updated_at)
     select id, visit_id, species_id, count, section, latitude, longitude, accuracy_metres, note, client_updated_at
     from json_to_recordset(${json}::json) as r(id uuid, visit_id uuid, species_id uuid, count integer, section smallint,
@@ -72,13 +86,13 @@ export async function upsertSightings(tx: BatchTx, volunteerId: string, rows: Si
     where cur.status = 'pending' and cur.reviewed_at is null
       and (cur.client_updated_at is null or cur.client_updated_at <= excluded.client_updated_at)
       and exists (select 1 from ${visits} v where v.id = cur.visit_id and v.volunteer_id = ${volunteerId})
-    returning cur.id`);
-  if (written.length !== rows.length) throw new BatchRaced("sightings");
+    returning cur.id)
+    select sync_expect_rows(count(*), ${rows.length}, 'sightings') as n from written`));
 }
 
-export async function deletePendingSightings(tx: BatchTx, ids: string[]): Promise<void> {
-  if (!ids.length) return;
-  const gone = await executePrepared<{ id: string }>(tx, sql`
-    delete from ${sightings} where id = any(${uuidArray(ids)}) and status = 'pending' and reviewed_at is null returning id`);
-  if (gone.length !== ids.length) throw new BatchRaced("deleted sightings");
+export function deletePendingSightings(tx: BatchTx, ids: string[]): Promise<void> {
+  if (!ids.length) return Promise.resolve();
+  return guarded("deleted sightings", ids.length, executePrepared(tx, sql`
+    with gone as (delete from ${sightings} where id = any(${uuidArray(ids)}) and status = 'pending' and reviewed_at is null returning id)
+    select sync_expect_rows(count(*), ${ids.length}, 'deleted sightings') as n from gone`));
 }

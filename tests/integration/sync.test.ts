@@ -48,11 +48,11 @@ function sightingOf(visitId: string, speciesId: string, over: Record<string, unk
   };
 }
 
-/** The writes run as the sync route runs them: in a batch transaction, after its BEGIN. */
-function inBatch<T>(work: (tx: BatchTx) => Promise<T>): Promise<T> {
+/** The writes run as the sync route runs them: in a batch transaction, after its BEGIN, with the COMMIT queued behind them. */
+function inBatch(work: (tx: BatchTx) => Promise<unknown>): Promise<void> {
   return inBatchTransaction(async (tx, begun) => {
     await begun;
-    return work(tx);
+    return { value: undefined, written: work(tx) };
   });
 }
 
@@ -364,6 +364,22 @@ describe("applying a sync batch from a volunteer's phone", () => {
     ]);
     expect(await storedSighting(late.id)).toBeUndefined();
     expect((await storedSighting(first.id))!.count).toBe(3);
+  });
+
+  it("a write refused by its guard takes the batch's earlier writes with it (the queued COMMIT rolls back)", async () => {
+    const visit = visitOf(transect.id);
+    const pending = sightingOf(visit.id, speciesIds[0]!);
+    const reviewed = sightingOf(visit.id, speciesIds[1]!);
+    await applySyncBatch(actor, { visits: [visit], sightings: [pending, reviewed] });
+    await db().update(sightings).set({ status: "accepted", reviewedAt: new Date() }).where(eq(sightings.id, reviewed.id));
+    const edit = { ...pending, count: 40, latitude: 51.2, longitude: -1.3, accuracyMetres: 8, note: null, clientUpdatedAt: new Date("2027-01-01T00:00:00Z") };
+
+    // The edit alone would land; sent before a delete its guard refuses, it must not.
+    await expect(inBatch((tx) => Promise.all([upsertSightings(tx, actor.id, [edit]), deletePendingSightings(tx, [reviewed.id])]))).rejects.toBeInstanceOf(BatchRaced);
+    expect((await storedSighting(pending.id))!.count).toBe(3);
+    expect(await storedSighting(reviewed.id)).toBeDefined();
+    await inBatch((tx) => upsertSightings(tx, actor.id, [edit]));
+    expect((await storedSighting(pending.id))!.count).toBe(40);
   });
 
   it("the write guards leave alone rows reviewed or taken over after the batch read them", async () => {
