@@ -23,7 +23,7 @@ const BATCHES_PER_VOLUNTEER = Number(process.env.BENCH_BATCHES ?? 20);
 // Untimed rounds first (every volunteer sends one batch per round, all at once): a server just
 // started compiles its hot code and prepares its statements on each connection during its first
 // few hundred requests, and the targets are about the server in steady use.
-const WARM_UP_ROUNDS = Number(process.env.BENCH_WARM_UP_ROUNDS ?? 20);
+const WARM_UP_ROUNDS = Number(process.env.BENCH_WARM_UP_ROUNDS ?? 40);
 const SIGHTINGS_PER_BATCH = 20;
 const RESENT_BATCHES = 5;
 const SIGN_IN_CONCURRENCY = 4; // bcrypt on the server dominates sign-in; more in parallel only queues
@@ -151,9 +151,9 @@ async function postBatch(cookie: string, batch: Batch): Promise<{ status: number
 type RawRows = { visit: Record<string, unknown>; sightings: Record<string, unknown>[] };
 type RawPlan = { senders: number; connections: number; commitEachBatch: boolean };
 
-/** The bench's batches again as plain rows under fresh ids, built before any timing starts. */
+/** The timed batches again as plain rows under fresh ids, built before any timing starts. */
 function rawRowsOf(volunteers: Volunteer[]): RawRows[] {
-  return volunteers.flatMap((v) => v.batches.map((b) => {
+  return volunteers.flatMap((v) => v.batches.slice(WARM_UP_ROUNDS).map((b) => {
     const visit = b.visits[0]!;
     const visitId = randomUUID();
     return {
@@ -293,7 +293,7 @@ async function main(): Promise<boolean> {
       { label: `${VOLUNTEERS} senders over ${appConnections} connections (as many as the app's processes hold), each batch committed`, plan: { senders: VOLUNTEERS, connections: appConnections, commitEachBatch: true } },
     ];
     const rawRates: number[] = [];
-    for (const { plan } of rawPlans) rawRates.push(stored.sent / (await rawInsertSeconds(volunteers, plan)));
+    for (const { plan } of rawPlans) rawRates.push(timedSightings / (await rawInsertSeconds(volunteers, plan)));
     const rawRate = rawRates[RATIO_BASELINE]!;
     const ratio = syncRate / rawRate;
 
@@ -302,7 +302,7 @@ async function main(): Promise<boolean> {
     console.log(`batches not fully created: ${problems.length}${problems.length ? ` (first: ${problems[0]})` : ""}`);
     console.log(`PostgreSQL check of ${stored.sent} sent sightings (incl. warm-up rounds): lost ${stored.lost}, duplicated ${stored.duplicated}, visit rows off by ${stored.visitsExtraOrMissing}`);
     console.log(`resent ${resent.length} batches: ${resendChanged} items not "unchanged"; after resend lost ${afterResend.lost}, duplicated ${afterResend.duplicated}`);
-    console.log(`plain multi-row INSERTs of the same ${stored.sent} sightings and their visits, straight into PostgreSQL:`);
+    console.log(`plain multi-row INSERTs of the same ${timedSightings} sightings and their visits, straight into PostgreSQL:`);
     rawPlans.forEach(({ label }, i) => console.log(`  ${i === RATIO_BASELINE ? "*" : " "} ${label}: ${rawRates[i]!.toFixed(0)} sightings/s (sync / this = ${(syncRate / rawRates[i]!).toFixed(2)})`));
     console.log(`ratio sync / raw insert (*): ${ratio.toFixed(2)}`);
     console.log(`load average at the end: ${load()}`);

@@ -15,7 +15,13 @@ const MAX_RESTARTS_IN_WINDOW = 5;
 let stopping = false;
 const restarts = [];
 
-cluster.setupPrimary({ exec: require.resolve("next/dist/bin/next"), args: ["start", ...process.argv.slice(2)] });
+cluster.setupPrimary({
+  exec: require.resolve("next/dist/bin/next"),
+  args: ["start", ...process.argv.slice(2)],
+  // A larger young generation means fewer garbage collection pauses for a server that makes
+  // many short-lived objects per request (V8's default tops out at 16 MB).
+  execArgv: [...process.execArgv, "--max-semi-space-size=32"],
+});
 for (let i = 0; i < processes; i++) cluster.fork();
 console.log(`[turnstone] serving with ${processes} app process${processes === 1 ? "" : "es"} (WEB_CONCURRENCY to change)`);
 
