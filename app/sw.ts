@@ -1,7 +1,7 @@
 /// <reference lib="webworker" />
 import { defaultCache } from "@serwist/next/worker";
 import type { PrecacheEntry, SerwistGlobalConfig } from "serwist";
-import { NetworkFirst, Serwist } from "serwist";
+import { CacheableResponsePlugin, NetworkFirst, Serwist } from "serwist";
 import { FIELD_PAGES_CACHE } from "../lib/offline/cache-names";
 
 declare global {
@@ -24,7 +24,14 @@ const serwist = new Serwist({
   runtimeCaching: [
     {
       matcher: ({ request, url, sameOrigin }) => sameOrigin && request.mode === "navigate" && fieldPage(url.pathname),
-      handler: new NetworkFirst({ cacheName: FIELD_PAGES_CACHE, networkTimeoutSeconds: 5, matchOptions: { ignoreSearch: true, ignoreVary: true } }),
+      handler: new NetworkFirst({
+        cacheName: FIELD_PAGES_CACHE,
+        networkTimeoutSeconds: 5,
+        matchOptions: { ignoreSearch: true, ignoreVary: true },
+        // Only a real page: a redirect to sign-in (an expired session) must not replace the
+        // cached field page, or the phone would have nothing to open offline.
+        plugins: [new CacheableResponsePlugin({ statuses: [200] })],
+      }),
     },
     ...defaultCache,
   ],

@@ -10,7 +10,7 @@ export default function SafetyPage() {
       <h1 className="mb-4 text-2xl font-bold text-tideline-800">Before you walk a route</h1>
       <SafetyNotice />
       <p className="mt-6">
-        <Link href="/" className="font-bold text-tideline-700">Back to Turnstone</Link>
+        <Link href="/" className="inline-flex min-h-tap min-w-tap items-center font-bold text-tideline-700">Back to Turnstone</Link>
       </p>
     </main>
   );

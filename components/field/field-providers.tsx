@@ -24,6 +24,9 @@ async function registerServiceWorker() {
   try {
     // Installing the worker and caching pages competes with the page itself on a slow network.
     await afterLoadAndIdle();
+    // Ask the browser not to clear this site's storage when space runs low: unsent records live
+    // there. Browsers may say no (some decide from how often the app is used); nothing else changes.
+    void navigator.storage?.persist?.().catch(() => false);
     await navigator.serviceWorker.register("/sw.js", { scope: "/" });
     await navigator.serviceWorker.ready;
     if (navigator.onLine && "caches" in window) {

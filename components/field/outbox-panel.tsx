@@ -96,7 +96,7 @@ export function OutboxPanel() {
               <li key={v.id} className="rounded-lg border border-rust-700 bg-rust-100 p-2 text-sm text-rust-700">
                 Visit on {v.visitDate}: {v.attention}{" "}
                 {v.outbox === "needs-attention" && (
-                  <a className="font-bold underline" href={`/field/visit?id=${v.id}&transect=${v.transectId}`}>Open it</a>
+                  <a className="inline-flex min-h-tap min-w-tap items-center font-bold underline" href={`/field/visit?id=${v.id}&transect=${v.transectId}`}>Open it</a>
                 )}
               </li>
             ))}

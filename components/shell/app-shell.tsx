@@ -42,7 +42,7 @@ export function AppShell({ actor, nav, children }: { actor: Actor; nav: NavItem[
         {children}
       </main>
       <footer className="border-t border-shingle-200 px-4 py-3 text-center text-sm text-shingle-600">
-        <Link href="/safety" className="font-bold text-tideline-700">Fieldwork safety</Link>
+        <Link href="/safety" className="inline-flex min-h-tap min-w-tap items-center font-bold text-tideline-700">Fieldwork safety</Link>
       </footer>
     </div>
   );

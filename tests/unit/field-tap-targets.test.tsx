@@ -39,14 +39,11 @@ function expand(classes: string[], seen = new Set<string>()): string[] {
 const tall = ["min-h-tap", "min-h-11", "min-h-12", "h-11", "h-12", "h-14", "h-16", "h-20"];
 const wide = ["min-w-tap", "min-w-11", "min-w-12", "w-11", "w-12", "w-14", "w-16", "w-20", "w-full"];
 
-/** Controls that belong to screens owned elsewhere (reported, not hidden): the outbox's "Open it" link. */
-const ownedElsewhere = '[data-testid="outbox"] li a';
 
 function undersized(container: HTMLElement): string[] {
   const controls = container.querySelectorAll<HTMLElement>("button, a[href], input:not([type=hidden]), select, textarea, [role=button]");
   const problems: string[] = [];
   controls.forEach((el) => {
-    if (el.matches(ownedElsewhere)) return;
     // A small checkbox is fine inside a full-width label that is itself a tall target.
     const target = el.matches("input[type=checkbox], input[type=radio]") ? el.closest("label") : el;
     const classes = expand(Array.from(target?.classList ?? []));
