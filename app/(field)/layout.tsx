@@ -1,11 +1,11 @@
 import { FieldProviders } from "@/components/field/field-providers";
-import { AppShell } from "@/components/shell/app-shell";
+import { FieldShell } from "@/components/shell/field-shell";
 import { requirePageActor } from "@/lib/auth/guard";
 
 export default async function FieldLayout({ children }: { children: React.ReactNode }) {
   const actor = await requirePageActor(["volunteer"], "/field");
   return (
-    <AppShell
+    <FieldShell
       actor={actor}
       nav={[
         { href: "/field", label: "My transects" },
@@ -14,6 +14,6 @@ export default async function FieldLayout({ children }: { children: React.ReactN
       ]}
     >
       <FieldProviders userId={actor.id}>{children}</FieldProviders>
-    </AppShell>
+    </FieldShell>
   );
 }

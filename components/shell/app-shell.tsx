@@ -1,49 +1,10 @@
 import Link from "next/link";
-import { LogoMark } from "@/components/brand/logo-mark";
 import type { Actor } from "@/lib/auth/guard";
-import { roleLabel } from "@/lib/auth/roles";
-import { SignOutButton } from "./sign-out-button";
+import { ShellFrame, type NavItem } from "./shell-frame";
 
-export type NavItem = { href: string; label: string };
+export type { NavItem } from "./shell-frame";
 
-/** The frame every signed-in page sits in: brand, the role's own menu, who is signed in. */
+/** The signed-in frame with client-side navigation between pages. */
 export function AppShell({ actor, nav, children }: { actor: Actor; nav: NavItem[]; children: React.ReactNode }) {
-  return (
-    <div className="flex min-h-dvh flex-col">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:rounded focus:bg-white focus:p-2">
-        Skip to content
-      </a>
-      <header className="border-b border-shingle-200 bg-white">
-        <div className="mx-auto flex max-w-5xl items-center gap-3 px-4 py-2">
-          <Link href="/" className="flex min-h-tap items-center gap-2 font-bold text-tideline-800 no-underline">
-            <LogoMark size={32} />
-            <span className="text-lg">Turnstone</span>
-          </Link>
-          <span className="ml-auto hidden text-right text-sm text-shingle-600 sm:block">
-            {actor.name}
-            <br />
-            <span className="font-bold text-shingle-800">{roleLabel[actor.role]}</span>
-          </span>
-          <SignOutButton phoneUserId={actor.role === "volunteer" ? actor.id : undefined} />
-        </div>
-        <nav aria-label="Main" className="mx-auto max-w-5xl overflow-x-auto px-2">
-          <ul className="flex gap-1">
-            {nav.map((item) => (
-              <li key={item.href}>
-                <Link href={item.href} className="inline-flex min-h-tap items-center rounded-t-lg px-3 font-bold text-tideline-700 hover:bg-tideline-50">
-                  {item.label}
-                </Link>
-              </li>
-            ))}
-          </ul>
-        </nav>
-      </header>
-      <main id="main" className="mx-auto w-full max-w-5xl flex-1 px-4 py-6">
-        {children}
-      </main>
-      <footer className="border-t border-shingle-200 px-4 py-3 text-center text-sm text-shingle-600">
-        <Link href="/safety" className="inline-flex min-h-tap min-w-tap items-center font-bold text-tideline-700">Fieldwork safety</Link>
-      </footer>
-    </div>
-  );
+  return <ShellFrame actor={actor} nav={nav} link={Link}>{children}</ShellFrame>;
 }
