@@ -1,7 +1,7 @@
 /// <reference lib="webworker" />
 import { defaultCache } from "@serwist/next/worker";
 import type { PrecacheEntry, SerwistGlobalConfig } from "serwist";
-import { CacheableResponsePlugin, NetworkFirst, Serwist } from "serwist";
+import { CacheableResponsePlugin, NetworkFirst, NetworkOnly, Serwist } from "serwist";
 import { FIELD_PAGES_CACHE } from "../lib/offline/cache-names";
 
 declare global {
@@ -32,6 +32,12 @@ const serwist = new Serwist({
         // cached field page, or the phone would have nothing to open offline.
         plugins: [new CacheableResponsePlugin({ statuses: [200] })],
       }),
+    },
+    {
+      // API answers are per person and the phone keeps what it needs in IndexedDB: never answer
+      // one from a cache, or a shared phone could show one volunteer's records to the next.
+      matcher: ({ url, sameOrigin }) => sameOrigin && url.pathname.startsWith("/api/"),
+      handler: new NetworkOnly(),
     },
     ...defaultCache,
   ],
