@@ -3,7 +3,8 @@
 import { useQuery } from "@tanstack/react-query";
 import { useEffect } from "react";
 import { fieldDb } from "@/lib/offline/db";
-import { keepReference, REFERENCE_KEY, refreshReference, type FieldReference } from "@/lib/offline/reference";
+import { keepReference, referenceKey, refreshReference, type FieldReference } from "@/lib/offline/reference";
+import { useFieldUserId } from "./field-providers";
 import { useLive } from "./use-live";
 
 /**
@@ -12,8 +13,9 @@ import { useLive } from "./use-live";
  * from whatever is already here and never wait for the network when the phone has a copy.
  */
 export function useFieldReference(initial?: FieldReference) {
-  const saved = useLive(async () => (await fieldDb().reference.get(REFERENCE_KEY))?.value as FieldReference | undefined ?? null, []);
-  const fresh = useQuery({ queryKey: ["field-reference"], queryFn: () => refreshReference() });
+  const userId = useFieldUserId();
+  const saved = useLive(async () => (await fieldDb().reference.get(referenceKey(userId)))?.value as FieldReference | undefined ?? null, [userId]);
+  const fresh = useQuery({ queryKey: ["field-reference", userId], queryFn: () => refreshReference() });
   useEffect(() => {
     if (initial) void keepReference(initial);
   }, [initial]);

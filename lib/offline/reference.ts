@@ -1,15 +1,21 @@
 import type { FieldReference } from "@/lib/queries/field-reference";
-import { fieldDb } from "./db";
+import { fieldDb, fieldUser } from "./db";
 
 export type { FieldReference };
 
-export const REFERENCE_KEY = "field-reference";
+/**
+ * Where the signed-in volunteer's copy is kept: one per volunteer, so a phone passed to someone
+ * else never shows them the previous volunteer's transects while it has no signal.
+ */
+export function referenceKey(userId: string | null = fieldUser()): string {
+  return `field-reference:${userId ?? "unknown"}`;
+}
 
 /** Keeps the newer of two copies (by when the server made them). */
 export async function keepReference(data: FieldReference): Promise<void> {
-  const saved = await fieldDb().reference.get(REFERENCE_KEY);
+  const saved = await fieldDb().reference.get(referenceKey());
   const savedAt = (saved?.value as FieldReference | undefined)?.savedAt ?? "";
-  if (data.savedAt > savedAt) await fieldDb().reference.put({ key: REFERENCE_KEY, value: data, savedAt: data.savedAt });
+  if (data.savedAt > savedAt) await fieldDb().reference.put({ key: referenceKey(), value: data, savedAt: data.savedAt });
 }
 
 /** Fetches a fresh copy when there is signal and keeps it on the phone. Throws when offline. */
@@ -22,6 +28,6 @@ export async function refreshReference(fetcher: typeof fetch = fetch): Promise<F
 }
 
 export async function phoneReference(): Promise<FieldReference | null> {
-  const saved = await fieldDb().reference.get(REFERENCE_KEY);
+  const saved = await fieldDb().reference.get(referenceKey());
   return (saved?.value as FieldReference | undefined) ?? null;
 }

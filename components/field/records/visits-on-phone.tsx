@@ -2,7 +2,7 @@
 
 import { belongsTo, fieldDb } from "@/lib/offline/db";
 import { visitsStillOnPhone, type VisitOnPhone } from "@/lib/offline/records";
-import { REFERENCE_KEY, type FieldReference } from "@/lib/offline/reference";
+import { referenceKey, type FieldReference } from "@/lib/offline/reference";
 import { useFieldUserId } from "../field-providers";
 import { useLive } from "../use-live";
 
@@ -23,7 +23,7 @@ export function phoneStateOf({ visit, photosWaiting }: VisitOnPhone): { label: s
 export function VisitsOnPhone() {
   const userId = useFieldUserId();
   const data = useLive(async () => {
-    const [visits, reference] = await Promise.all([visitsStillOnPhone(), fieldDb().reference.get(REFERENCE_KEY)]);
+    const [visits, reference] = await Promise.all([visitsStillOnPhone(), fieldDb().reference.get(referenceKey())]);
     // Only the signed-in volunteer's visits: a shared phone may hold someone else's too.
     const own = visits.filter((item) => belongsTo(item.visit, userId));
     return { visits: own, transects: (reference?.value as FieldReference | undefined)?.transects ?? [] };
