@@ -1,8 +1,9 @@
 import { z } from "zod";
 import { roles } from "@/lib/auth/roles";
+import { safeText } from "@/lib/validation/fields";
 
 export const inviteSchema = z.object({
-  name: z.string().trim().min(2, { message: "Enter the person's name." }).max(120),
+  name: safeText(120).pipe(z.string().min(2, { message: "Enter the person's name." })),
   email: z.email({ message: "Enter a valid e-mail address." }).max(320),
   role: z.enum(roles, { message: "Choose a role." }),
 });
