@@ -5,6 +5,8 @@ import { SignInPage } from "./pages/sign-in-page";
 import { accounts, password } from "./support/accounts";
 import { baseUrl, openBrowser } from "./support/browser";
 
+const article = (word: string) => (/^[aeiou]/i.test(word) ? "an" : "a");
+
 // Each role's own page and API route; every other role must be refused both.
 const owned: Record<Role, { page: string; api: string }> = {
   volunteer: { page: "/field", api: "/api/field/transects" },
@@ -47,7 +49,7 @@ describe("with the wrong role", () => {
 
   for (const role of roles) {
     for (const other of roles.filter((r) => r !== role)) {
-      it(`a ${role} is refused the ${other}'s page and API route (403)`, async () => {
+      it(`${article(role)} ${role} is refused the ${other}'s page and API route (403)`, async () => {
         const { context } = sessions.get(role)!;
         const api = await context.request.get(owned[other].api);
         expect(api.status()).toBe(403);
@@ -59,7 +61,7 @@ describe("with the wrong role", () => {
         await page.close();
       });
     }
-    it(`a ${role} reaches their own API route (200)`, async () => {
+    it(`${article(role)} ${role} reaches their own API route (200)`, async () => {
       const { context } = sessions.get(role)!;
       const api = await context.request.get(owned[role].api);
       expect(api.status()).toBe(200);
