@@ -1,6 +1,7 @@
 "use client";
 
 import { SafetyNotice } from "@/components/safety/safety-notice";
+import { OfflineReadiness } from "./offline-readiness";
 import { belongsTo, fieldDb } from "@/lib/offline/db";
 import type { FieldReference } from "@/lib/offline/reference";
 import { useFieldUserId } from "./field-providers";
@@ -29,6 +30,7 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
         <h1 className="text-2xl font-bold text-tideline-800">Hello, {firstName}</h1>
         {season && <p className="text-shingle-600">{season.name}: {season.startsOn} to {season.endsOn}</p>}
         {reference.offlineCopy && <p className="text-sm text-sand-800">No signal: showing the copy saved on this phone.</p>}
+        <OfflineReadiness hasReference={Boolean(data)} />
       </div>
 
       <section aria-labelledby="my-transects">

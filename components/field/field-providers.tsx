@@ -5,6 +5,7 @@ import { createContext, useContext, useEffect, useState } from "react";
 import { FIELD_PAGES_CACHE } from "@/lib/offline/cache-names";
 import { fieldUser, setFieldUser } from "@/lib/offline/db";
 import { startSyncController } from "@/lib/offline/sync-controller";
+import { OFFLINE_READY_EVENT } from "./offline-readiness";
 
 // Field routes a volunteer may open with no signal: stored once online in the cache the
 // service worker answers field navigations from.
@@ -37,6 +38,7 @@ async function registerServiceWorker() {
           if (res?.ok && !res.redirected) await cache.put(route, res);
         }),
       );
+      window.dispatchEvent(new Event(OFFLINE_READY_EVENT));
     }
   } catch {
     // Without a service worker the app still works online; the outbox still keeps records.

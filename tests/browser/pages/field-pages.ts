@@ -20,7 +20,11 @@ export class FieldHomePage {
         const keys = (await cache.keys()).map((r) => new URL(r.url).pathname);
         return ["/field", "/field/visit"].every((p) => keys.includes(p));
       });
-      if (ready) return;
+      if (ready) {
+        // The volunteer is told too, from the same facts.
+        await this.page.getByTestId("offline-readiness").filter({ hasText: "ready to record with no signal" }).waitFor({ timeout: 10_000 });
+        return;
+      }
       await this.page.waitForTimeout(250);
     }
     throw new Error("The service worker did not take control and cache the field pages in time.");

@@ -1,0 +1,40 @@
+"use client";
+
+import { useEffect, useState } from "react";
+import { FIELD_PAGES_CACHE } from "@/lib/offline/cache-names";
+
+/** Sent by the field providers once the service worker runs and the field pages are stored. */
+export const OFFLINE_READY_EVENT = "turnstone:offline-ready";
+const needed = ["/field", "/field/visit"];
+
+type Readiness = "checking" | "ready" | "not-yet" | "unsupported";
+
+async function check(): Promise<Readiness> {
+  if (!("serviceWorker" in navigator) || !("caches" in window)) return "unsupported";
+  if (!navigator.serviceWorker.controller) return "not-yet";
+  const cache = await caches.open(FIELD_PAGES_CACHE);
+  const stored = (await cache.keys()).map((r) => new URL(r.url).pathname);
+  return needed.every((p) => stored.includes(p)) ? "ready" : "not-yet";
+}
+
+/**
+ * Tells the volunteer whether this phone can be taken out of signal yet: the service worker is
+ * running and holds the field pages (their transects and checklist are in IndexedDB by then).
+ */
+export function OfflineReadiness({ hasReference }: { hasReference: boolean }) {
+  const [state, setState] = useState<Readiness>("checking");
+  useEffect(() => {
+    const update = () => void check().then(setState).catch(() => setState("not-yet"));
+    update();
+    window.addEventListener(OFFLINE_READY_EVENT, update);
+    return () => window.removeEventListener(OFFLINE_READY_EVENT, update);
+  }, []);
+  if (state === "checking") return null;
+  if (state === "unsupported") return <p className="text-sm text-sand-800">This browser cannot keep Turnstone for use with no signal: record with a signal, or use another browser.</p>;
+  const ready = state === "ready" && hasReference;
+  return (
+    <p role="status" data-testid="offline-readiness" className={ready ? "text-sm text-tideline-700" : "text-sm text-sand-800"}>
+      {ready ? "This phone is ready to record with no signal." : "Getting this phone ready for no signal… keep Turnstone open while you have a signal."}
+    </p>
+  );
+}
