@@ -29,12 +29,16 @@ export function OfflineReadiness({ hasReference }: { hasReference: boolean }) {
     window.addEventListener(OFFLINE_READY_EVENT, update);
     return () => window.removeEventListener(OFFLINE_READY_EVENT, update);
   }, []);
-  if (state === "checking") return null;
-  if (state === "unsupported") return <p className="text-sm text-sand-800">This browser cannot keep Turnstone for use with no signal: record with a signal, or use another browser.</p>;
   const ready = state === "ready" && hasReference;
+  const text =
+    state === "checking" ? "" :
+    state === "unsupported" ? "This browser cannot keep Turnstone for use with no signal: record with a signal, or use another browser." :
+    ready ? "This phone is ready to record with no signal." :
+    "Getting this phone ready for no signal… keep Turnstone open while you have a signal.";
+  // The lines keep their height while the check runs, so the screen does not jump when it fills in.
   return (
-    <p role="status" data-testid="offline-readiness" className={ready ? "text-sm text-tideline-700" : "text-sm text-sand-800"}>
-      {ready ? "This phone is ready to record with no signal." : "Getting this phone ready for no signal… keep Turnstone open while you have a signal."}
+    <p role="status" data-testid="offline-readiness" className={`min-h-10 text-sm ${ready ? "text-tideline-700" : "text-sand-800"}`}>
+      {text}
     </p>
   );
 }
