@@ -3,6 +3,7 @@ import { eq, getTableColumns, sql } from "drizzle-orm";
 import type { BatchTx } from "./batch-transaction";
 import { seasons, sightings, species, transectAssignments, transects, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
+import { executePrepared } from "./prepared";
 import { uuidArray } from "./sql-arrays";
 
 export type ServerVisit = typeof visits.$inferSelect & { sectionCount: number; hasReviewed: boolean };
@@ -23,6 +24,24 @@ export type StateKeys = { transectIds: string[]; visitIds: string[]; sightingIds
 
 const reviewedSightingOfVisit = sql<boolean>`exists (select 1 from ${sightings} s where s.visit_id = ${visits.id} and (s.status <> 'pending' or s.reviewed_at is not null))`;
 
+type Facts = { assigned: [string, number][]; species: string[]; seasons: SeasonSpan[] };
+
+/**
+ * The small lookups in one statement (each statement costs the server more than these reads do):
+ * all of the volunteer's assignments (a handful; a stored visit a sighting names may be on a
+ * transect none of the batch's visits mention, and it must still be assigned), which of the
+ * batch's species exist, and the seasons (a visit's season is derived from its date).
+ */
+function loadFacts(tx: BatchTx, actor: Actor, speciesIds: string[]): Promise<Facts[]> {
+  return executePrepared<Facts>(tx, sql`
+    select
+      (select coalesce(json_agg(json_build_array(t.id, t.section_count)), '[]'::json)
+         from ${transectAssignments} a join ${transects} t on t.id = a.transect_id where a.user_id = ${actor.id}) as assigned,
+      (select coalesce(json_agg(s.id), '[]'::json) from ${species} s where s.id = any(${uuidArray(speciesIds)})) as species,
+      (select coalesce(json_agg(json_build_object('id', x.id, 'startsOn', x.starts_on, 'endsOn', x.ends_on)), '[]'::json)
+         from ${seasons} x) as seasons`);
+}
+
 /**
  * Reads the batch's server state inside its transaction. Existing visits and sightings are
  * locked (FOR UPDATE) so a coordinator's review or a parallel resend cannot slip in between
@@ -33,18 +52,8 @@ const reviewedSightingOfVisit = sql<boolean>`exists (select 1 from ${sightings} 
  */
 export async function loadServerState(tx: BatchTx, actor: Actor, keys: StateKeys): Promise<ServerState> {
   const none = Promise.resolve([] as never[]);
-  const [assignedRows, visitRows, sightingRows, speciesRows, seasonRows] = await Promise.all([
-    // All of the volunteer's assignments (a handful): a stored visit a sighting names may be on a
-    // transect none of the batch's visits mention, and it must still be assigned.
-    keys.transectIds.length || keys.visitIds.length
-      ? tx
-          .select({ id: transects.id, sectionCount: transects.sectionCount })
-          .from(transectAssignments)
-          .innerJoin(transects, eq(transects.id, transectAssignments.transectId))
-          .where(eq(transectAssignments.userId, actor.id))
-          .prepare("sync_assigned")
-          .execute()
-      : none,
+  const [[facts], visitRows, sightingRows] = await Promise.all([
+    loadFacts(tx, actor, keys.speciesIds),
     keys.visitIds.length
       ? tx
           .select({ ...getTableColumns(visits), sectionCount: transects.sectionCount, hasReviewed: reviewedSightingOfVisit })
@@ -67,19 +76,13 @@ export async function loadServerState(tx: BatchTx, actor: Actor, keys: StateKeys
           .prepare("sync_sightings")
           .execute()
       : none,
-    keys.speciesIds.length
-      ? tx.select({ id: species.id }).from(species).where(sql`${species.id} = any(${uuidArray(keys.speciesIds)})`).prepare("sync_species").execute()
-      : none,
-    keys.visitIds.length
-      ? tx.select({ id: seasons.id, startsOn: seasons.startsOn, endsOn: seasons.endsOn }).from(seasons).prepare("sync_seasons").execute()
-      : none,
   ]);
   return {
-    assigned: new Map(assignedRows.map((r) => [r.id, r.sectionCount])),
+    assigned: new Map(facts!.assigned),
     visits: new Map(visitRows.map((v) => [v.id, v])),
     sightings: new Map(sightingRows.map((s) => [s.id, s])),
-    knownSpecies: new Set(speciesRows.map((s) => s.id)),
-    seasons: seasonRows,
+    knownSpecies: new Set(facts!.species),
+    seasons: facts!.seasons,
   };
 }
 
