@@ -22,8 +22,9 @@ const VOLUNTEERS = Number(process.env.BENCH_VOLUNTEERS ?? 50);
 const BATCHES_PER_VOLUNTEER = Number(process.env.BENCH_BATCHES ?? 20);
 // Untimed rounds first (every volunteer sends one batch per round, all at once): a server just
 // started compiles its hot code and prepares its statements on each connection during its first
-// few hundred requests, and the targets are about the server in steady use.
-const WARM_UP_ROUNDS = Number(process.env.BENCH_WARM_UP_ROUNDS ?? 40);
+// few thousand requests, and the targets are about the server in steady use. What the rounds
+// stored is deleted again before timing, so the timed part meets the database as it was.
+const WARM_UP_ROUNDS = Number(process.env.BENCH_WARM_UP_ROUNDS ?? 60);
 const SIGHTINGS_PER_BATCH = 20;
 const RESENT_BATCHES = 5;
 const SIGN_IN_CONCURRENCY = 4; // bcrypt on the server dominates sign-in; more in parallel only queues
@@ -154,7 +155,7 @@ type RawPlan = { senders: number; connections: number; commitEachBatch: boolean 
 
 /** The timed batches again as plain rows under fresh ids, built before any timing starts. */
 function rawRowsOf(volunteers: Volunteer[]): RawRows[] {
-  return volunteers.flatMap((v) => v.batches.slice(WARM_UP_ROUNDS).map((b) => {
+  return volunteers.flatMap((v) => v.batches.map((b) => {
     const visit = b.visits[0]!;
     const visitId = randomUUID();
     return {
@@ -238,19 +239,22 @@ async function main(): Promise<boolean> {
     await inPool(volunteers, SIGN_IN_CONCURRENCY, async (v) => { v.cookie = await signIn(v.email, password); });
     console.log(`signed in ${volunteers.length} bench volunteers in ${((performance.now() - signInStart) / 1000).toFixed(1)} s`);
 
+    const warmUpVisits: string[] = [];
     for (let round = 0; round < WARM_UP_ROUNDS; round++) {
       await Promise.all(volunteers.map(async (v) => {
         const b = makeBatch(v, BATCHES_PER_VOLUNTEER + round, speciesIds);
-        v.batches.push(b);
+        warmUpVisits.push(b.visits[0]!.id);
         const r = await postBatch(v.cookie!, b);
-        if (r.status !== 200) throw new Error(`warm-up batch answered ${r.status}`);
+        if (r.status !== 200 || r.body.results.some((x) => x.status !== "created")) throw new Error(`a warm-up batch was not fully created (HTTP ${r.status})`);
       }));
     }
+    await sql`delete from visits where id = any(${warmUpVisits}::uuid[])`;
+    await sql`vacuum analyze visits, sightings`;
     for (const v of volunteers) for (let n = 0; n < BATCHES_PER_VOLUNTEER; n++) v.batches.push(makeBatch(v, n, speciesIds));
 
     // A phone serializes its batch and reads the answer on its own processor, not the server's:
     // the simulated phones do both outside the timed part, so they take less of the shared machine.
-    const payloads = new Map(volunteers.map((v) => [v, v.batches.slice(WARM_UP_ROUNDS).map((b) => Buffer.from(JSON.stringify(b)))]));
+    const payloads = new Map(volunteers.map((v) => [v, v.batches.map((b) => Buffer.from(JSON.stringify(b)))]));
     const latencies: number[] = [];
     const answers: { batch: Batch; answer: RawAnswer }[] = [];
     const start = performance.now();
@@ -260,7 +264,7 @@ async function main(): Promise<boolean> {
         const t0 = performance.now();
         const answer = await sendBatch(v.cookie!, bodies[i]!);
         latencies.push(performance.now() - t0);
-        answers.push({ batch: v.batches[i + WARM_UP_ROUNDS]!, answer });
+        answers.push({ batch: v.batches[i]!, answer });
       }
     }));
     const seconds = (performance.now() - start) / 1000;
@@ -276,7 +280,7 @@ async function main(): Promise<boolean> {
     const [p50, p95, p99] = [50, 95, 99].map((p) => percentile(latencies, p));
 
     const stored = await countStored(volunteers);
-    const timed = volunteers.flatMap((v) => v.batches.slice(WARM_UP_ROUNDS).map((b) => ({ v, b })));
+    const timed = volunteers.flatMap((v) => v.batches.map((b) => ({ v, b })));
     const step = Math.max(1, Math.floor(timed.length / RESENT_BATCHES));
     const resent = timed.filter((_, i) => i % step === 0).slice(0, RESENT_BATCHES);
     let resendChanged = 0;
@@ -306,7 +310,7 @@ async function main(): Promise<boolean> {
     console.log(`\nsync: ${timedSightings} sightings in ${latencies.length} batches over ${seconds.toFixed(2)} s = ${syncRate.toFixed(0)} sightings/s`);
     console.log(`batch latency: p50 ${p50!.toFixed(1)} ms, p95 ${p95!.toFixed(1)} ms, p99 ${p99!.toFixed(1)} ms (max ${latencies.at(-1)!.toFixed(1)} ms)`);
     console.log(`batches not fully created: ${problems.length}${problems.length ? ` (first: ${problems[0]})` : ""}`);
-    console.log(`PostgreSQL check of ${stored.sent} sent sightings (incl. warm-up rounds): lost ${stored.lost}, duplicated ${stored.duplicated}, visit rows off by ${stored.visitsExtraOrMissing}`);
+    console.log(`PostgreSQL check of ${stored.sent} sent sightings: lost ${stored.lost}, duplicated ${stored.duplicated}, visit rows off by ${stored.visitsExtraOrMissing}`);
     console.log(`resent ${resent.length} batches: ${resendChanged} items not "unchanged"; after resend lost ${afterResend.lost}, duplicated ${afterResend.duplicated}`);
     console.log(`plain multi-row INSERTs of the same ${timedSightings} sightings and their visits, straight into PostgreSQL (median of ${RAW_RUNS} runs each):`);
     rawPlans.forEach(({ label }, i) => console.log(`  ${i === RATIO_BASELINE ? "*" : " "} ${label}: ${rawRates[i]!.toFixed(0)} sightings/s (sync / this = ${(syncRate / rawRates[i]!).toFixed(2)})`));
