@@ -83,6 +83,11 @@ export function fieldUser(): string | null {
   return signedInUserId;
 }
 
+/** An item the outbox still has to send ("sending" too: a tab closed mid-request leaves it so). */
+export function isWaiting(state: OutboxState): boolean {
+  return state === "on-phone" || state === "sending";
+}
+
 /** A visit shown to and sent for this volunteer: theirs, or one recorded before owners were kept. */
 export function belongsTo(visit: Pick<LocalVisit, "ownerId">, userId: string | null): boolean {
   return visit.ownerId == null || visit.ownerId === userId;

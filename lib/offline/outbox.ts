@@ -1,16 +1,9 @@
-import { MAX_BATCH_ITEMS, type ItemResult, type SightingPayload, type SyncResponse, type VisitPayload } from "@/lib/sync/protocol";
-import { belongsTo, fieldDb, type LocalSighting, type LocalVisit, type OutboxState } from "./db";
+import { MAX_BATCH_ITEMS, MAX_SYNC_BODY_BYTES, type ItemResult, type SightingPayload, type SyncResponse, type VisitPayload } from "@/lib/sync/protocol";
+import { belongsTo, fieldDb, isWaiting, type LocalSighting, type LocalVisit, type OutboxState } from "./db";
 import { batchBody, encode, planBatches, type BatchLimits, type VisitGroup } from "./outbox-batches";
 import { applyResults, backToPhone, refuseBatch, setSightings, type OutboxBatch } from "./outbox-results";
 import { sendPhotos } from "./photo-upload";
 import { isPassingFault, readServerError } from "./server-answers";
-
-/**
- * The largest sync request body the server reads: MAX_BODY_BYTES in
- * app/(field)/api/field/sync/route.ts, which answers 413 above it. The contract does not export
- * it, so it is repeated here; tests/unit/outbox-batching.test.ts fails if the two drift apart.
- */
-export const MAX_SYNC_BODY_BYTES = 2_000_000;
 
 /**
  * What one batch may hold. Item counts come from the contract (lib/sync/contract.ts syncEnvelope
@@ -70,8 +63,6 @@ function toSightingPayload(s: LocalSighting): SightingPayload {
   };
 }
 
-const waiting = (state: OutboxState) => state === "on-phone" || state === "sending";
-
 /** Visits recorded before owners were kept go to the first volunteer who syncs on this phone. */
 async function claimUnownedVisits(userId: string): Promise<void> {
   await fieldDb().visits.filter((v) => v.ownerId == null).modify({ ownerId: userId });
@@ -92,8 +83,8 @@ async function pendingGroups(userId: string): Promise<VisitGroup<LocalVisit, Loc
   const sightings = await db.sightings.where("visitId").anyOf(visits.map((v) => v.id)).toArray();
   sightings.sort((a, b) => a.updatedAt.localeCompare(b.updatedAt) || a.id.localeCompare(b.id));
   return visits.flatMap((visit) => {
-    const resendVisit = waiting(visit.outbox);
-    const toSend = sightings.filter((s) => s.visitId === visit.id && (resendVisit ? s.outbox !== "sent" : waiting(s.outbox)));
+    const resendVisit = isWaiting(visit.outbox);
+    const toSend = sightings.filter((s) => s.visitId === visit.id && (resendVisit ? s.outbox !== "sent" : isWaiting(s.outbox)));
     if (!resendVisit && toSend.length === 0) return [];
     return [{ visit: resendVisit ? encode(visit, toVisitPayload(visit)) : null, sightings: toSend.map((s) => encode(s, toSightingPayload(s))) }];
   });

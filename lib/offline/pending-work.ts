@@ -1,6 +1,4 @@
-import { fieldDb, type OutboxState } from "./db";
-
-const waiting = (state: OutboxState) => state === "on-phone" || state === "sending";
+import { belongsTo, fieldDb, isWaiting } from "./db";
 
 /**
  * Whether an outbox pass for this volunteer would find anything to send, from cheap reads, so
@@ -9,13 +7,13 @@ const waiting = (state: OutboxState) => state === "on-phone" || state === "sendi
  */
 export async function hasWorkToSend(userId: string): Promise<boolean> {
   const db = fieldDb();
-  const visits = await db.visits.filter((v) => v.ownerId == null || v.ownerId === userId).toArray();
+  const visits = await db.visits.filter((v) => belongsTo(v, userId)).toArray();
   if (visits.some((v) => v.ownerId == null)) return true;
   const submitted = visits.filter((v) => v.phase === "submitted" && v.outbox !== "needs-attention");
-  if (submitted.some((v) => waiting(v.outbox))) return true;
+  if (submitted.some((v) => isWaiting(v.outbox))) return true;
   if (submitted.length) {
-    const sightings = await db.sightings.where("visitId").anyOf(submitted.map((v) => v.id)).filter((s) => waiting(s.outbox)).count();
+    const sightings = await db.sightings.where("visitId").anyOf(submitted.map((v) => v.id)).filter((s) => isWaiting(s.outbox)).count();
     if (sightings > 0) return true;
   }
-  return (await db.photos.filter((p) => waiting(p.outbox)).count()) > 0;
+  return (await db.photos.filter((p) => isWaiting(p.outbox)).count()) > 0;
 }

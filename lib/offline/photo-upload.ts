@@ -1,5 +1,5 @@
 import { photoErrorCodes, type PhotoUploadTicket } from "@/lib/photos/protocol";
-import { fieldDb, type LocalPhoto } from "./db";
+import { fieldDb, isWaiting, type LocalPhoto } from "./db";
 import type { OutboxRun } from "./outbox";
 import { isPassingFault, readServerError } from "./server-answers";
 
@@ -47,7 +47,7 @@ async function sendOne(fetcher: typeof fetch, photo: LocalPhoto): Promise<Outcom
  */
 export async function sendPhotos(fetcher: typeof fetch, run: OutboxRun, userId: string): Promise<void> {
   const db = fieldDb();
-  const waiting = (await db.photos.toArray()).filter((p) => p.outbox === "on-phone" || p.outbox === "sending");
+  const waiting = (await db.photos.toArray()).filter((p) => isWaiting(p.outbox));
   for (const photo of waiting) {
     const visit = await db.visits.get(photo.visitId);
     const sighting = photo.sightingId ? await db.sightings.get(photo.sightingId) : null;

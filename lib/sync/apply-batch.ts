@@ -45,7 +45,6 @@ async function applyInTransaction(tx: BatchTx, begun: Promise<unknown>, actor: A
 
   const [state] = await Promise.all([
     loadServerState(tx, actor, {
-      transectIds: [...new Set(visitItems.map((v) => v.transectId))],
       visitIds: [...new Set([...visitItems.map((v) => v.id), ...sightingItems.map((s) => s.visitId)])],
       sightingIds: sightingItems.map((s) => s.id),
       speciesIds: [...new Set(sightingItems.filter((s) => !s.deleted).map((s) => s.speciesId))],

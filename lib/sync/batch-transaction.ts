@@ -1,13 +1,11 @@
 import "server-only";
-import { PgDialect } from "drizzle-orm/pg-core";
 import { PostgresJsDatabase, PostgresJsSession } from "drizzle-orm/postgres-js";
 import type { ReservedSql } from "postgres";
 import { db, sqlClient } from "@/db/client";
+import { dialect } from "./prepared";
 
 /** What the sync code may use inside a batch's transaction: drizzle's query builders on one connection. */
 export type BatchTx = PostgresJsDatabase<Record<string, never>>;
-
-const dialect = new PgDialect();
 
 // drizzle() itself wants the pool's options object, which a reserved connection lacks; the pool's
 // drizzle instance (db()) has already installed its type parsers, which the connection shares.

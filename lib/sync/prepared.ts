@@ -5,7 +5,8 @@ import type { PostgresJsSession } from "drizzle-orm/postgres-js";
 import type { Sql } from "postgres";
 import type { BatchTx } from "./batch-transaction";
 
-const dialect = new PgDialect();
+/** The one SQL dialect of the sync code: renders statements and builds its query builders. */
+export const dialect = new PgDialect();
 
 /**
  * Runs a hand-written statement on the batch's connection as a prepared statement.

@@ -3,6 +3,11 @@
 export const skyValues = ["clear", "mostly_sunny", "broken_cloud", "mostly_cloudy", "overcast"] as const;
 
 export const MAX_BATCH_ITEMS = 500;
+/**
+ * The largest sync request body the server reads (it answers 413 above it); the outbox stays under
+ * it. A full batch of 500 sightings with long notes stays well under this.
+ */
+export const MAX_SYNC_BODY_BYTES = 2_000_000;
 
 /** What the phone sends for a visit (the server checks it with contract.ts's visitPayload). */
 export type VisitPayload = {

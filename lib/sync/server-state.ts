@@ -20,7 +20,7 @@ export type ServerState = {
   seasons: SeasonSpan[];
 };
 
-export type StateKeys = { transectIds: string[]; visitIds: string[]; sightingIds: string[]; speciesIds: string[] };
+export type StateKeys = { visitIds: string[]; sightingIds: string[]; speciesIds: string[] };
 
 const reviewedSightingOfVisit = sql<boolean>`exists (select 1 from ${sightings} s where s.visit_id = ${visits.id} and (s.status <> 'pending' or s.reviewed_at is not null))`;
 

@@ -3,6 +3,7 @@ import { asc, count, eq, inArray, ne } from "drizzle-orm";
 import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { db } from "@/db/client";
 import { sightings, species, transectAssignments, users, visits } from "@/db/schema";
+import { MAX_SYNC_BODY_BYTES } from "@/lib/sync/protocol";
 import { TEXT_PROBLEMS } from "@/lib/validation/text";
 import { resetToDemo } from "./support/db";
 
@@ -52,6 +53,15 @@ describe("POST /api/field/sync", () => {
 
   beforeEach(() => {
     session.userId = volunteer;
+  });
+
+  it("answers 413 to a body over the limit the phone's outbox keeps its batches under, and stores nothing", async () => {
+    const batch = batchFor(mine, speciesId);
+    const padded = JSON.stringify({ ...batch, padding: "x".repeat(MAX_SYNC_BODY_BYTES) });
+    const refused = await post(padded);
+    expect(refused.status).toBe(413);
+    expect(refused.json.error.code).toBe("too_large");
+    expect(await db().select().from(visits).where(eq(visits.id, batch.visits[0]!.id))).toHaveLength(0);
   });
 
   it("answers 401 without a session and 403 for a signed-in non-volunteer", async () => {

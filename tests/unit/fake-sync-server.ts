@@ -1,16 +1,7 @@
 // A stand-in for the field API (sync batches and the photo flow) for the outbox's unit tests.
 // It validates with the real contract (lib/sync/contract.ts), applies the server's size limits,
 // records every write and every answer, and can lose answers or fail on request.
-import { readFileSync } from "node:fs";
-import { batchStatus, sightingPayload, syncEnvelope, visitPayload, type ItemResult } from "@/lib/sync/contract";
-
-/** MAX_BODY_BYTES as written in the sync route, read from its source so a change there shows here. */
-export function routeBodyLimit(): number {
-  const source = readFileSync(new URL("../../app/(field)/api/field/sync/route.ts", import.meta.url), "utf8");
-  const match = source.match(/MAX_BODY_BYTES\s*=\s*([\d_]+)/);
-  if (!match) throw new Error("MAX_BODY_BYTES is no longer in the sync route: update the outbox's limit and this helper.");
-  return Number(match[1]!.replaceAll("_", ""));
-}
+import { batchStatus, MAX_SYNC_BODY_BYTES, sightingPayload, syncEnvelope, visitPayload, type ItemResult } from "@/lib/sync/contract";
 
 export type Write = { kind: "visit" | "sighting"; id: string; op: "create" | "update" };
 
@@ -41,7 +32,7 @@ export function fakeServer(options: FakeServerOptions = {}) {
   const bodies: string[] = [];
   let toLose = options.loseSyncAnswers ?? 0;
   const utf8 = new TextEncoder();
-  const bodyLimit = routeBodyLimit();
+  const bodyLimit = MAX_SYNC_BODY_BYTES; // the sync route's own limit (tests/integration/sync-route.test.ts)
 
   function store(kind: Write["kind"], table: Map<string, string>, id: string, value: unknown, index: number): ItemResult {
     // Compared without the time of the edit, as the server's `sameFields` does.

@@ -2,13 +2,11 @@ import { NextResponse } from "next/server";
 import { invalid } from "@/lib/errors";
 import { route } from "@/lib/http/route";
 import { applySyncBatch } from "@/lib/sync/apply-batch";
-
-// A full batch of 500 sightings with long notes stays well under this; anything larger is not a phone.
-const MAX_BODY_BYTES = 2_000_000;
+import { MAX_SYNC_BODY_BYTES } from "@/lib/sync/protocol";
 
 async function readBatch(request: Request): Promise<unknown | NextResponse> {
   const text = await request.text();
-  if (text.length > MAX_BODY_BYTES) {
+  if (text.length > MAX_SYNC_BODY_BYTES) {
     return NextResponse.json({ error: { code: "too_large", message: "The sync batch is too large: send fewer items at a time." } }, { status: 413 });
   }
   try {
