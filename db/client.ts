@@ -12,7 +12,7 @@ const globalForDb = globalThis as unknown as { turnstoneSql?: postgres.Sql; turn
 
 export function sqlClient(): postgres.Sql {
   globalForDb.turnstoneSql ??= postgres(env().DATABASE_URL, {
-    max: Number(process.env.DATABASE_POOL_SIZE ?? 10),
+    max: env().DATABASE_POOL_SIZE,
     idle_timeout: 20,
     connect_timeout: 10,
     onnotice: () => undefined,

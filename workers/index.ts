@@ -2,7 +2,7 @@
 // (nightly comparisons, photo processing retries) are added here.
 import "../scripts/load-env";
 import { closeDb, db } from "@/db/client";
-import { flushOutbox } from "./outbox";
+import { sendQueuedMail } from "./mail-sender";
 
 const INTERVAL_MS = Number(process.env.WORKER_INTERVAL_MS ?? 5000);
 let stopping = false;
@@ -10,7 +10,7 @@ let stopping = false;
 async function loop() {
   while (!stopping) {
     try {
-      const { sent, failed } = await flushOutbox(db());
+      const { sent, failed } = await sendQueuedMail(db());
       if (sent || failed) console.log(`[worker] outbox: ${sent} sent, ${failed} failed`);
     } catch (error) {
       console.error("[worker] outbox pass failed:", error instanceof Error ? error.message : error);

@@ -2,7 +2,7 @@
 
 import { SafetyNotice } from "@/components/safety/safety-notice";
 import { OfflineReadiness } from "./offline-readiness";
-import { belongsTo, fieldDb } from "@/lib/offline/db";
+import { belongsTo, phoneStore } from "@/lib/offline/phone-store";
 import type { FieldReference } from "@/lib/offline/reference";
 import { useFieldUserId } from "./field-providers";
 import { OutboxPanel } from "./outbox-panel";
@@ -15,7 +15,7 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
   const userId = useFieldUserId();
   const local = useLive(async () => {
     // Only the signed-in volunteer's visits: a shared phone may hold someone else's too.
-    const visits = (await fieldDb().visits.toArray()).filter((v) => belongsTo(v, userId));
+    const visits = (await phoneStore().visits.toArray()).filter((v) => belongsTo(v, userId));
     return {
       drafts: visits.filter((v) => v.phase === "draft").sort((a, b) => b.updatedAt.localeCompare(a.updatedAt)),
       unsentByTransect: visits.filter((v) => v.phase === "submitted" && v.outbox !== "sent"),

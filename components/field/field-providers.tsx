@@ -3,7 +3,7 @@
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { createContext, useContext, useEffect, useState } from "react";
 import { FIELD_PAGES_CACHE } from "@/lib/offline/cache-names";
-import { fieldUser, setFieldUser } from "@/lib/offline/db";
+import { fieldUser, setFieldUser } from "@/lib/offline/phone-store";
 import { startSyncController } from "@/lib/offline/sync-controller";
 import { OFFLINE_READY_EVENT } from "./offline-readiness";
 

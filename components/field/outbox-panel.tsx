@@ -1,7 +1,7 @@
 "use client";
 
 import { useEffect, useState } from "react";
-import { belongsTo, fieldDb, type KeptOnServer, type OutboxState } from "@/lib/offline/db";
+import { belongsTo, phoneStore, type KeptOnServer, type OutboxState } from "@/lib/offline/phone-store";
 import { onSyncState, syncNow } from "@/lib/offline/sync-controller";
 import { useFieldUserId } from "./field-providers";
 import { useLive } from "./use-live";
@@ -50,7 +50,7 @@ export function OutboxPanel() {
     };
   }, []);
   const items = useLive(async () => {
-    const db = fieldDb();
+    const db = phoneStore();
     // Only this volunteer's items: a shared phone may hold someone else's too.
     const visits = (await db.visits.where("phase").equals("submitted").toArray())
       .filter((v) => belongsTo(v, userId))

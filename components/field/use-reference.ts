@@ -2,7 +2,7 @@
 
 import { useQuery } from "@tanstack/react-query";
 import { useEffect } from "react";
-import { fieldDb } from "@/lib/offline/db";
+import { phoneStore } from "@/lib/offline/phone-store";
 import { keepReference, referenceKey, refreshReference, type FieldReference } from "@/lib/offline/reference";
 import { useFieldUserId } from "./field-providers";
 import { useLive } from "./use-live";
@@ -14,7 +14,7 @@ import { useLive } from "./use-live";
  */
 export function useFieldReference(initial?: FieldReference) {
   const userId = useFieldUserId();
-  const saved = useLive(async () => (await fieldDb().reference.get(referenceKey(userId)))?.value as FieldReference | undefined ?? null, [userId]);
+  const saved = useLive(async () => (await phoneStore().reference.get(referenceKey(userId)))?.value as FieldReference | undefined ?? null, [userId]);
   const fresh = useQuery({ queryKey: ["field-reference", userId], queryFn: () => refreshReference() });
   useEffect(() => {
     if (initial) void keepReference(initial);

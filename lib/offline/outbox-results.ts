@@ -1,5 +1,5 @@
 import { settledStatuses, type ItemResult } from "@/lib/sync/protocol";
-import { fieldDb, type LocalSighting, type LocalVisit } from "./db";
+import { phoneStore, type LocalSighting, type LocalVisit } from "./phone-store";
 import type { Batch } from "./outbox-batches";
 import type { OutboxRun } from "./outbox";
 
@@ -18,12 +18,12 @@ function describe(result: ItemResult): string {
 
 /** The same change to many sightings by key, in one request (a batch holds hundreds). */
 export function setSightings(ids: string[], changes: Partial<Pick<LocalSighting, "outbox" | "attention">>) {
-  return fieldDb().sightings.bulkUpdate(ids.map((key) => ({ key, changes })));
+  return phoneStore().sightings.bulkUpdate(ids.map((key) => ({ key, changes })));
 }
 
 /** Leaves items on the phone for the next pass, with a note the outbox can show. */
 export async function backToPhone(visitIds: string[], sightingIds: string[], note?: string) {
-  const db = fieldDb();
+  const db = phoneStore();
   await db.transaction("rw", db.visits, db.sightings, async () => {
     await db.visits.where("id").anyOf(visitIds).modify((v) => {
       v.outbox = "on-phone";
@@ -36,7 +36,7 @@ export async function backToPhone(visitIds: string[], sightingIds: string[], not
 
 /** The server refused the whole batch: every item in it needs the volunteer, with the server's words. */
 export async function refuseBatch(batch: OutboxBatch, message: string, run: OutboxRun, held: Set<string>) {
-  const db = fieldDb();
+  const db = phoneStore();
   const visitIds = new Set(batch.visits.map((v) => v.item.id));
   const parentsOnServer = new Set(batch.sightings.map((s) => s.item.visitId).filter((id) => !visitIds.has(id)));
   await db.transaction("rw", db.visits, db.sightings, async () => {
@@ -49,7 +49,7 @@ export async function refuseBatch(batch: OutboxBatch, message: string, run: Outb
 }
 
 async function noteKeptOnServer(visitId: string, what: "visit" | "sighting") {
-  const visits = fieldDb().visits;
+  const visits = phoneStore().visits;
   const visit = await visits.get(visitId);
   if (!visit) return;
   const kept = visit.keptOnServer ?? { visit: false, sightings: 0 };
@@ -57,7 +57,7 @@ async function noteKeptOnServer(visitId: string, what: "visit" | "sighting") {
 }
 
 export async function applyResults(results: ItemResult[], batch: OutboxBatch, run: OutboxRun, held: Set<string>) {
-  const db = fieldDb();
+  const db = phoneStore();
   const byKey = new Map(results.map((r) => [`${r.kind}:${r.index}`, r]));
   const settled = (r: ItemResult | undefined): r is ItemResult => !!r && settledStatuses.includes(r.status);
   const refusedVisits = new Set<string>();

@@ -1,5 +1,5 @@
 import { MAX_BATCH_ITEMS, MAX_SYNC_BODY_BYTES, type ItemResult, type SightingPayload, type SyncResponse, type VisitPayload } from "@/lib/sync/protocol";
-import { belongsTo, fieldDb, isWaiting, type LocalSighting, type LocalVisit, type OutboxState } from "./db";
+import { belongsTo, phoneStore, isWaiting, type LocalSighting, type LocalVisit, type OutboxState } from "./phone-store";
 import { batchBody, encode, planBatches, type BatchLimits, type VisitGroup } from "./outbox-batches";
 import { applyResults, backToPhone, refuseBatch, setSightings, type OutboxBatch } from "./outbox-results";
 import { sendPhotos } from "./photo-upload";
@@ -65,7 +65,7 @@ function toSightingPayload(s: LocalSighting): SightingPayload {
 
 /** Visits recorded before owners were kept go to the first volunteer who syncs on this phone. */
 async function claimUnownedVisits(userId: string): Promise<void> {
-  await fieldDb().visits.filter((v) => v.ownerId == null).modify({ ownerId: userId });
+  await phoneStore().visits.filter((v) => v.ownerId == null).modify({ ownerId: userId });
 }
 
 /**
@@ -76,7 +76,7 @@ async function claimUnownedVisits(userId: string): Promise<void> {
  * volunteer corrects and submits them again.
  */
 async function pendingGroups(userId: string): Promise<VisitGroup<LocalVisit, LocalSighting>[]> {
-  const db = fieldDb();
+  const db = phoneStore();
   const visits = (await db.visits.where("ownerId").equals(userId).toArray())
     .filter((v) => v.phase === "submitted" && v.outbox !== "needs-attention")
     .sort((a, b) => (a.submittedAt ?? "").localeCompare(b.submittedAt ?? "") || a.id.localeCompare(b.id));
@@ -133,7 +133,7 @@ export async function runOutbox(userId: string, fetcher: typeof fetch = fetch): 
 }
 
 async function sendBatch(batch: OutboxBatch, fetcher: typeof fetch, run: OutboxRun, held: Set<string>): Promise<"next" | "stop"> {
-  const db = fieldDb();
+  const db = phoneStore();
   const visitIds = batch.visits.map((v) => v.item.id);
   const sightingIds = batch.sightings.map((s) => s.item.id);
   await db.transaction("rw", db.visits, db.sightings, async () => {
@@ -178,7 +178,7 @@ export type UnsentOnPhone = { visits: number; sightings: number; photos: number 
 
 /** What this volunteer has on the phone that the server does not have yet, drafts included. */
 export async function unsentOnPhone(userId: string): Promise<UnsentOnPhone> {
-  const db = fieldDb();
+  const db = phoneStore();
   const visits = (await db.visits.toArray()).filter((v) => belongsTo(v, userId));
   const visitIds = visits.map((v) => v.id);
   const [sightings, photos] = await Promise.all([
@@ -191,5 +191,5 @@ export async function unsentOnPhone(userId: string): Promise<UnsentOnPhone> {
 
 /** The volunteer has read that the server kept its copy; the note can go. */
 export async function acknowledgeKeptOnServer(visitId: string): Promise<void> {
-  await fieldDb().visits.update(visitId, { keptOnServer: null });
+  await phoneStore().visits.update(visitId, { keptOnServer: null });
 }

@@ -1,4 +1,4 @@
-import { belongsTo, fieldDb, isWaiting } from "./db";
+import { belongsTo, phoneStore, isWaiting } from "./phone-store";
 
 /**
  * Whether an outbox pass for this volunteer would find anything to send, from cheap reads, so
@@ -6,7 +6,7 @@ import { belongsTo, fieldDb, isWaiting } from "./db";
  * towards yes: visits with no owner yet count (a pass claims them), and so does any waiting photo.
  */
 export async function hasWorkToSend(userId: string): Promise<boolean> {
-  const db = fieldDb();
+  const db = phoneStore();
   const visits = await db.visits.filter((v) => belongsTo(v, userId)).toArray();
   if (visits.some((v) => v.ownerId == null)) return true;
   const submitted = visits.filter((v) => v.phase === "submitted" && v.outbox !== "needs-attention");

@@ -1,5 +1,5 @@
 import { photoErrorCodes, type PhotoUploadTicket } from "@/lib/photos/protocol";
-import { fieldDb, isWaiting, type LocalPhoto } from "./db";
+import { phoneStore, isWaiting, type LocalPhoto } from "./phone-store";
 import type { OutboxRun } from "./outbox";
 import { isPassingFault, readServerError } from "./server-answers";
 
@@ -46,7 +46,7 @@ async function sendOne(fetcher: typeof fetch, photo: LocalPhoto): Promise<Outcom
  * failure or 401 stops the pass; a passing fault on one photo asks for a retry and moves on.
  */
 export async function sendPhotos(fetcher: typeof fetch, run: OutboxRun, userId: string): Promise<void> {
-  const db = fieldDb();
+  const db = phoneStore();
   const waiting = (await db.photos.toArray()).filter((p) => isWaiting(p.outbox));
   for (const photo of waiting) {
     const visit = await db.visits.get(photo.visitId);
@@ -86,7 +86,7 @@ export async function sendPhotos(fetcher: typeof fetch, run: OutboxRun, userId: 
 
 /** Removes a photo the server refused for good (it will never upload) from this phone. */
 export async function removeRefusedPhoto(photoId: string): Promise<void> {
-  const photos = fieldDb().photos;
+  const photos = phoneStore().photos;
   const photo = await photos.get(photoId);
   if (photo?.outbox !== "needs-attention") throw new Error("Only a photo the server refused can be removed here.");
   await photos.delete(photoId);

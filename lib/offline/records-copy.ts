@@ -1,4 +1,4 @@
-import { fieldDb } from "./db";
+import { phoneStore } from "./phone-store";
 
 // The phone's copy of "My records", so the volunteer can read it with no signal. Kept in the
 // reference table (cached server data) under a key per volunteer, so a shared phone never shows
@@ -24,11 +24,11 @@ export type RecordsCopy = { visits: RecordVisit[]; asOf: string };
 const keyFor = (volunteerId: string) => `my-records:${volunteerId}`;
 
 export async function keepRecordsCopy(volunteerId: string, copy: RecordsCopy): Promise<void> {
-  await fieldDb().reference.put({ key: keyFor(volunteerId), value: copy, savedAt: copy.asOf });
+  await phoneStore().reference.put({ key: keyFor(volunteerId), value: copy, savedAt: copy.asOf });
 }
 
 export async function savedRecordsCopy(volunteerId: string): Promise<RecordsCopy | null> {
-  return ((await fieldDb().reference.get(keyFor(volunteerId)))?.value as RecordsCopy | undefined) ?? null;
+  return ((await phoneStore().reference.get(keyFor(volunteerId)))?.value as RecordsCopy | undefined) ?? null;
 }
 
 /** The copy with the volunteer's new answer in place, so the answered question shows at once. */

@@ -1,4 +1,4 @@
-import { fieldDb, type LocalPhoto, type LocalSighting, type LocalVisit } from "./db";
+import { phoneStore, type LocalPhoto, type LocalSighting, type LocalVisit } from "./phone-store";
 
 // Local edits. Everything here works with no signal; the outbox sends submitted visits later.
 
@@ -11,7 +11,7 @@ export type NewVisit = Pick<
 
 export async function createVisit(input: NewVisit): Promise<string> {
   const id = crypto.randomUUID();
-  await fieldDb().visits.add({
+  await phoneStore().visits.add({
     ...input,
     id,
     endTime: null,
@@ -28,7 +28,7 @@ export async function createVisit(input: NewVisit): Promise<string> {
 }
 
 async function editableVisit(visitId: string): Promise<LocalVisit> {
-  const visit = await fieldDb().visits.get(visitId);
+  const visit = await phoneStore().visits.get(visitId);
   if (!visit) throw new Error("That visit is not on this phone.");
   if (visit.phase !== "draft") throw new Error("This visit has been submitted and can no longer be changed here.");
   return visit;
@@ -36,7 +36,7 @@ async function editableVisit(visitId: string): Promise<LocalVisit> {
 
 export async function updateVisit(visitId: string, changes: Partial<Omit<LocalVisit, "id" | "phase" | "outbox">>): Promise<void> {
   await editableVisit(visitId);
-  await fieldDb().visits.update(visitId, { ...changes, updatedAt: now() });
+  await phoneStore().visits.update(visitId, { ...changes, updatedAt: now() });
 }
 
 export type NewSighting = Pick<LocalSighting, "speciesId" | "count" | "section" | "latitude" | "longitude" | "accuracyMetres" | "note">;
@@ -44,20 +44,20 @@ export type NewSighting = Pick<LocalSighting, "speciesId" | "count" | "section" 
 export async function addSighting(visitId: string, input: NewSighting): Promise<string> {
   await editableVisit(visitId);
   const id = crypto.randomUUID();
-  await fieldDb().sightings.add({ ...input, id, visitId, updatedAt: now(), outbox: "on-phone", attention: null });
+  await phoneStore().sightings.add({ ...input, id, visitId, updatedAt: now(), outbox: "on-phone", attention: null });
   return id;
 }
 
 export async function updateSighting(id: string, changes: Partial<NewSighting>): Promise<void> {
-  const sighting = await fieldDb().sightings.get(id);
+  const sighting = await phoneStore().sightings.get(id);
   if (!sighting) throw new Error("That record is not on this phone.");
   await editableVisit(sighting.visitId);
-  await fieldDb().sightings.update(id, { ...changes, updatedAt: now() });
+  await phoneStore().sightings.update(id, { ...changes, updatedAt: now() });
 }
 
 /** Drafts were never sent, so deleting one removes it outright, with its photos. */
 export async function deleteSighting(id: string): Promise<void> {
-  const db = fieldDb();
+  const db = phoneStore();
   const sighting = await db.sightings.get(id);
   if (!sighting) return;
   await editableVisit(sighting.visitId);
@@ -82,15 +82,15 @@ export async function addPhoto(visitId: string, sightingId: string | null, file:
     attention: null,
     attempts: 0,
   };
-  await fieldDb().photos.add(photo);
+  await phoneStore().photos.add(photo);
   return id;
 }
 
 export async function removePhoto(id: string): Promise<void> {
-  const photo = await fieldDb().photos.get(id);
+  const photo = await phoneStore().photos.get(id);
   if (!photo) return;
   await editableVisit(photo.visitId);
-  await fieldDb().photos.delete(id);
+  await phoneStore().photos.delete(id);
 }
 
 /**
@@ -103,7 +103,7 @@ export async function saveSightingWithPhotos(
   fields: NewSighting,
   photos: { add: Blob[]; remove: string[] },
 ): Promise<string> {
-  const db = fieldDb();
+  const db = phoneStore();
   return db.transaction("rw", db.visits, db.sightings, db.photos, async () => {
     const id = sightingId ? (await updateSighting(sightingId, fields), sightingId) : await addSighting(visitId, fields);
     for (const photoId of photos.remove) {
@@ -115,7 +115,7 @@ export async function saveSightingWithPhotos(
 }
 
 export async function deleteDraftVisit(visitId: string): Promise<void> {
-  const db = fieldDb();
+  const db = phoneStore();
   await editableVisit(visitId);
   await db.transaction("rw", db.visits, db.sightings, db.photos, async () => {
     await db.photos.where("visitId").equals(visitId).delete();
@@ -126,7 +126,7 @@ export async function deleteDraftVisit(visitId: string): Promise<void> {
 
 /** Finishing puts the visit in the outbox; it goes when there is signal. */
 export async function submitVisit(visitId: string, finish: { endTime: string; completeList: boolean; notes: string | null }): Promise<void> {
-  const db = fieldDb();
+  const db = phoneStore();
   const visit = await editableVisit(visitId);
   if (finish.endTime < visit.startTime) throw new Error("The end time is before the start time.");
   const at = now();
@@ -139,9 +139,9 @@ export async function submitVisit(visitId: string, finish: { endTime: string; co
 
 /** Lets the volunteer correct a visit the server could not accept, then submit it again. */
 export async function returnToDraft(visitId: string): Promise<void> {
-  const visit = await fieldDb().visits.get(visitId);
+  const visit = await phoneStore().visits.get(visitId);
   if (!visit || visit.outbox !== "needs-attention") throw new Error("Only a visit that needs attention can be reopened.");
-  await fieldDb().visits.update(visitId, { phase: "draft", outbox: "on-phone" });
+  await phoneStore().visits.update(visitId, { phase: "draft", outbox: "on-phone" });
 }
 
 export type VisitOnPhone = { visit: LocalVisit; sightings: number; photos: number; photosWaiting: number };
@@ -151,7 +151,7 @@ export type VisitOnPhone = { visit: LocalVisit; sightings: number; photos: numbe
  * photos still to upload), newest first.
  */
 export async function visitsStillOnPhone(): Promise<VisitOnPhone[]> {
-  const db = fieldDb();
+  const db = phoneStore();
   const [visits, sightings, photos] = await Promise.all([db.visits.toArray(), db.sightings.toArray(), db.photos.toArray()]);
   const unsent = (item: { outbox: string }) => item.outbox !== "sent";
   return visits

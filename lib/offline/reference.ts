@@ -1,5 +1,5 @@
 import type { FieldReference } from "@/lib/queries/field-reference";
-import { fieldDb, fieldUser } from "./db";
+import { phoneStore, fieldUser } from "./phone-store";
 
 export type { FieldReference };
 
@@ -13,9 +13,9 @@ export function referenceKey(userId: string | null = fieldUser()): string {
 
 /** Keeps the newer of two copies (by when the server made them). */
 export async function keepReference(data: FieldReference): Promise<void> {
-  const saved = await fieldDb().reference.get(referenceKey());
+  const saved = await phoneStore().reference.get(referenceKey());
   const savedAt = (saved?.value as FieldReference | undefined)?.savedAt ?? "";
-  if (data.savedAt > savedAt) await fieldDb().reference.put({ key: referenceKey(), value: data, savedAt: data.savedAt });
+  if (data.savedAt > savedAt) await phoneStore().reference.put({ key: referenceKey(), value: data, savedAt: data.savedAt });
 }
 
 /** Fetches a fresh copy when there is signal and keeps it on the phone. Throws when offline. */
@@ -28,6 +28,6 @@ export async function refreshReference(fetcher: typeof fetch = fetch): Promise<F
 }
 
 export async function phoneReference(): Promise<FieldReference | null> {
-  const saved = await fieldDb().reference.get(referenceKey());
+  const saved = await phoneStore().reference.get(referenceKey());
   return (saved?.value as FieldReference | undefined) ?? null;
 }

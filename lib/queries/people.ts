@@ -8,7 +8,7 @@ import { hashPassword } from "@/lib/auth/password";
 import { roleLabel } from "@/lib/auth/roles";
 import { env } from "@/lib/env";
 import { conflict, invalid, notFound } from "@/lib/errors";
-import { enqueueEmails } from "@/lib/mail/outbox";
+import { enqueueEmails } from "@/lib/mail/queue";
 
 const INVITATION_DAYS = 14;
 

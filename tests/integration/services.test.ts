@@ -3,7 +3,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { emailOutbox } from "@/db/schema";
 import { healthReport } from "@/lib/health";
-import { flushOutbox } from "@/workers/outbox";
+import { sendQueuedMail } from "@/workers/mail-sender";
 import { resetToDemo } from "./support/db";
 
 const inboxUrl = `http://127.0.0.1:${process.env.TURNSTONE_MAIL_API_PORT ?? 54332}/messages`;
@@ -25,7 +25,7 @@ describe("the local services", () => {
   it("the worker sends a queued e-mail through SMTP and marks it sent", async () => {
     const to = `outbox-${Date.now()}@example.org`;
     await db().insert(emailOutbox).values({ toAddress: to, subject: "Outbox check", textBody: "Hello from the outbox test", purpose: "test" });
-    const result = await flushOutbox(db());
+    const result = await sendQueuedMail(db());
     expect(result.sent).toBeGreaterThanOrEqual(1);
     const [row] = await db().select().from(emailOutbox).where(eq(emailOutbox.toAddress, to));
     expect(row!.status).toBe("sent");

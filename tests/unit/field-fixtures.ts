@@ -1,6 +1,6 @@
 // Shared set-up for the field screens' component tests (jsdom + fake-indexeddb).
 import "fake-indexeddb/auto";
-import { FieldDatabase, setFieldDb } from "@/lib/offline/db";
+import { PhoneStore, setPhoneStore } from "@/lib/offline/phone-store";
 import type { FieldReference } from "@/lib/offline/reference";
 
 export const transectA = "6f1c1f7e-2b7a-4c1e-9a55-5d2f0c7b9a10";
@@ -36,9 +36,9 @@ export function fieldReference(): FieldReference {
 }
 
 /** A separately named IndexedDB for each test, so tests never see each other's records. */
-export function freshFieldDb(): FieldDatabase {
-  const db = new FieldDatabase(`ui-test-${crypto.randomUUID()}`);
-  setFieldDb(db);
+export function freshFieldDb(): PhoneStore {
+  const db = new PhoneStore(`ui-test-${crypto.randomUUID()}`);
+  setPhoneStore(db);
   return db;
 }
 

@@ -10,7 +10,7 @@ import { SafetyGate } from "@/components/field/safety-gate";
 import { RecordingScreen } from "@/components/field/visit/recording-screen";
 import { SightingForm } from "@/components/field/visit/sighting-form";
 import { StartVisitForm } from "@/components/field/visit/start-visit-form";
-import { fieldDb } from "@/lib/offline/db";
+import { phoneStore } from "@/lib/offline/phone-store";
 import { addPhoto, addSighting, createVisit, submitVisit } from "@/lib/offline/records";
 import { keepReference } from "@/lib/offline/reference";
 import tailwindConfig from "@/tailwind.config";
@@ -81,7 +81,7 @@ describe("tap targets on the field screens (at least 44 x 44 px)", () => {
     const draft = await createVisit({ transectId: transectA, visitDate: "2026-07-05", startTime: "10:00", temperatureC: null, windBeaufort: null, cloudCoverPercent: null, sky: null, coRecorders: null });
     const refused = await createVisit({ transectId: transectA, visitDate: "2026-07-04", startTime: "10:00", temperatureC: null, windBeaufort: null, cloudCoverPercent: null, sky: null, coRecorders: null });
     await submitVisit(refused, { endTime: "11:00", completeList: true, notes: null });
-    await fieldDb().visits.update(refused, { outbox: "needs-attention", attention: "Not your transect." });
+    await phoneStore().visits.update(refused, { outbox: "needs-attention", attention: "Not your transect." });
     const { container } = render(withQueries(<FieldHome firstName="Ada" initial={reference} />));
     await screen.findByRole("link", { name: new RegExp(`2026-07-05`) });
     expect(container.querySelector(`a[href*="${draft}"]`)).not.toBeNull();
@@ -121,7 +121,7 @@ describe("tap targets on the field screens (at least 44 x 44 px)", () => {
     expect(undersized(container)).toEqual([]);
 
     await submitVisit(visitId, { endTime: "11:00", completeList: true, notes: null });
-    await fieldDb().visits.update(visitId, { outbox: "needs-attention", attention: "Check the date." });
+    await phoneStore().visits.update(visitId, { outbox: "needs-attention", attention: "Check the date." });
     await screen.findByRole("button", { name: "Correct it" });
     expect(undersized(container)).toEqual([]);
   });
@@ -130,7 +130,7 @@ describe("tap targets on the field screens (at least 44 x 44 px)", () => {
     const visitId = await createVisit({ transectId: transectA, visitDate: "2026-07-05", startTime: "10:00", temperatureC: null, windBeaufort: null, cloudCoverPercent: null, sky: null, coRecorders: null });
     const id = await addSighting(visitId, { speciesId: meadowBrown, count: 2, section: 1, latitude: 52.1, longitude: 1.6, accuracyMetres: 8, note: null });
     await addPhoto(visitId, id, jpeg("a.jpg"));
-    const editing = (await fieldDb().sightings.get(id))!;
+    const editing = (await phoneStore().sightings.get(id))!;
     const { container } = render(<SightingForm visitId={visitId} checklist={reference.checklist} seenHere={[]} sectionCount={8} editing={editing} onDone={() => undefined} />);
     await screen.findByRole("button", { name: "Remove Photo 1" });
     fireEvent.change(screen.getByLabelText("Photos (optional)"), { target: { files: [jpeg("b.jpg")] } });

@@ -3,7 +3,7 @@ import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { fireEvent, render, screen, waitFor, within } from "@testing-library/react";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { MyRecords } from "@/components/field/my-records";
-import { fieldDb } from "@/lib/offline/db";
+import { phoneStore } from "@/lib/offline/phone-store";
 import { createVisit, submitVisit } from "@/lib/offline/records";
 import { keepReference } from "@/lib/offline/reference";
 import type { RecordsCopy, RecordSighting } from "@/lib/offline/records-copy";
@@ -133,7 +133,7 @@ describe("my records", () => {
     vi.stubGlobal("fetch", vi.fn(async () => json(records())));
     const online = renderRecords();
     await screen.findByText(/Small Blue/);
-    await waitFor(async () => expect(await fieldDb().reference.get(`my-records:${volunteerId}`)).toBeDefined());
+    await waitFor(async () => expect(await phoneStore().reference.get(`my-records:${volunteerId}`)).toBeDefined());
     online.unmount();
 
     vi.stubGlobal("fetch", vi.fn(async () => {
@@ -150,7 +150,7 @@ describe("my records", () => {
   });
 
   it("never shows another volunteer's saved copy", async () => {
-    await fieldDb().reference.put({ key: "my-records:someone-else", value: records(), savedAt: "2026-07-04T09:30:00.000Z" });
+    await phoneStore().reference.put({ key: "my-records:someone-else", value: records(), savedAt: "2026-07-04T09:30:00.000Z" });
     vi.stubGlobal("fetch", vi.fn(async () => {
       throw new TypeError("Failed to fetch");
     }));
@@ -166,10 +166,10 @@ describe("my records", () => {
     await submitVisit(waiting, { endTime: "10:00", completeList: true, notes: null });
     const refused = await createVisit({ transectId: transectA, visitDate: "2026-07-01", startTime: "09:00", temperatureC: null, windBeaufort: null, cloudCoverPercent: null, sky: null, coRecorders: null });
     await submitVisit(refused, { endTime: "10:00", completeList: true, notes: null });
-    await fieldDb().visits.update(refused, { outbox: "needs-attention", attention: "Not your transect." });
+    await phoneStore().visits.update(refused, { outbox: "needs-attention", attention: "Not your transect." });
     const sent = await createVisit({ transectId: transectA, visitDate: "2026-06-30", startTime: "09:00", temperatureC: null, windBeaufort: null, cloudCoverPercent: null, sky: null, coRecorders: null });
     await submitVisit(sent, { endTime: "10:00", completeList: true, notes: null });
-    await fieldDb().visits.update(sent, { outbox: "sent" });
+    await phoneStore().visits.update(sent, { outbox: "sent" });
 
     vi.stubGlobal("fetch", vi.fn(async () => json(records())));
     renderRecords();

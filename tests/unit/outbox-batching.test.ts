@@ -1,6 +1,6 @@
 import "fake-indexeddb/auto";
 import { beforeEach, describe, expect, it } from "vitest";
-import { FieldDatabase, fieldDb, setFieldDb, setFieldUser, type LocalSighting } from "@/lib/offline/db";
+import { PhoneStore, phoneStore, setPhoneStore, setFieldUser, type LocalSighting } from "@/lib/offline/phone-store";
 import { OUTBOX_LIMITS, runOutbox } from "@/lib/offline/outbox";
 import { batchBody, encode, planBatches, type BatchLimits, type VisitGroup } from "@/lib/offline/outbox-batches";
 import { addSighting, createVisit, submitVisit } from "@/lib/offline/records";
@@ -92,7 +92,7 @@ async function submittedVisit(sightings: number, note: string | null = null) {
     id: crypto.randomUUID(), visitId, speciesId, count: 2 + (i % 50), section: 1, latitude: null, longitude: null, accuracyMetres: null, note,
     updatedAt: new Date(start + 1_000 + i).toISOString(), outbox: "on-phone", attention: null,
   }));
-  await fieldDb().sightings.bulkAdd(more);
+  await phoneStore().sightings.bulkAdd(more);
   sightingIds.push(...more.map((m) => m.id));
   await submitVisit(visitId, { endTime: "11:30", completeList: true, notes: null });
   return { visitId, sightingIds };
@@ -103,8 +103,8 @@ const bodyOf = (body: string) => JSON.parse(body) as { visits: { id: string }[];
 // Thousands of IndexedDB writes: generous time on a busy machine.
 describe("the outbox in batches against a server with the real limits", { timeout: 30_000 }, () => {
   beforeEach(async () => {
-    const db = new FieldDatabase(`test-${crypto.randomUUID()}`);
-    setFieldDb(db);
+    const db = new PhoneStore(`test-${crypto.randomUUID()}`);
+    setPhoneStore(db);
     setFieldUser(userId);
     await db.open();
   });
@@ -118,7 +118,7 @@ describe("the outbox in batches against a server with the real limits", { timeou
     expect(bodies.map((b) => [b.visits.length, b.sightings.length])).toEqual([[1, 500], [0, 500], [0, 234]]);
     expect(bodies[0]!.visits[0]!.id).toBe(visitId);
     expect(server.writes.filter((w) => w.op === "create").map((w) => w.id).sort()).toEqual([visitId, ...sightingIds].sort());
-    expect(await fieldDb().sightings.where("outbox").notEqual("sent").count()).toBe(0);
+    expect(await phoneStore().sightings.where("outbox").notEqual("sent").count()).toBe(0);
   });
 
   it("keeps each visit with its sightings when several fill batches", async () => {
@@ -147,7 +147,7 @@ describe("the outbox in batches against a server with the real limits", { timeou
     for (const body of server.bodies) expect(utf8.encode(body).length).toBeLessThanOrEqual(MAX_SYNC_BODY_BYTES);
     for (const body of bodies) expect(body.sightings).toHaveLength(body.visits.length * 40);
     expect(server.answers.flat().filter((r) => r.kind === "sighting")).toHaveLength(480);
-    const left = await fieldDb().sightings.bulkGet(visits.flatMap((v) => v.sightingIds));
+    const left = await phoneStore().sightings.bulkGet(visits.flatMap((v) => v.sightingIds));
     expect(left.every((s) => s?.outbox === "needs-attention")).toBe(true);
   });
 
@@ -163,12 +163,12 @@ describe("the outbox in batches against a server with the real limits", { timeou
     const first = await runOutbox(userId, flaky.fetcher);
     expect(first.retryLater).toBe(true);
     // The visit is on the server; 200 of its sightings are not.
-    expect((await fieldDb().visits.get(visitId))?.outbox).toBe("sent");
-    expect(await fieldDb().sightings.where("outbox").equals("on-phone").count()).toBe(200);
+    expect((await phoneStore().visits.get(visitId))?.outbox).toBe("sent");
+    expect(await phoneStore().sightings.where("outbox").equals("on-phone").count()).toBe(200);
     const second = await runOutbox(userId, flaky.fetcher);
     expect(second).toMatchObject({ sent: 200, retryLater: false });
     expect(bodyOf(flaky.bodies.at(-1)!)).toMatchObject({ visits: [] });
-    expect(await fieldDb().sightings.where("outbox").notEqual("sent").count()).toBe(0);
+    expect(await phoneStore().sightings.where("outbox").notEqual("sent").count()).toBe(0);
     expect(new Set(flaky.writes.map((w) => w.id)).size).toBe(701);
   });
 
@@ -177,8 +177,8 @@ describe("the outbox in batches against a server with the real limits", { timeou
     const { visitId } = await submittedVisit(700);
     await runOutbox(userId, server.fetcher);
     expect(server.bodies).toHaveLength(1);
-    expect(await fieldDb().visits.get(visitId)).toMatchObject({ outbox: "needs-attention", attention: "Refused." });
-    expect(await fieldDb().sightings.where("outbox").equals("needs-attention").count()).toBe(500);
-    expect(await fieldDb().sightings.where("outbox").equals("on-phone").count()).toBe(200);
+    expect(await phoneStore().visits.get(visitId)).toMatchObject({ outbox: "needs-attention", attention: "Refused." });
+    expect(await phoneStore().sightings.where("outbox").equals("needs-attention").count()).toBe(500);
+    expect(await phoneStore().sightings.where("outbox").equals("on-phone").count()).toBe(200);
   });
 });

@@ -1,7 +1,7 @@
 import "fake-indexeddb/auto";
 import Dexie from "dexie";
 import { beforeEach, describe, expect, it } from "vitest";
-import { FieldDatabase, fieldDb, setFieldDb, setFieldUser } from "@/lib/offline/db";
+import { PhoneStore, phoneStore, setPhoneStore, setFieldUser } from "@/lib/offline/phone-store";
 import { runOutbox, unsentOnPhone } from "@/lib/offline/outbox";
 import { addPhoto, addSighting, createVisit, submitVisit } from "@/lib/offline/records";
 import { fakeServer } from "./fake-sync-server";
@@ -24,13 +24,13 @@ async function visitBy(userId: string, options: { submit?: boolean; sightings?: 
 
 describe("a phone shared by several volunteers", () => {
   beforeEach(async () => {
-    setFieldDb(new FieldDatabase(`test-${crypto.randomUUID()}`));
+    setPhoneStore(new PhoneStore(`test-${crypto.randomUUID()}`));
     setFieldUser(null);
   });
 
   it("stamps new visits with the signed-in volunteer", async () => {
     const visitId = await visitBy(alice, { submit: false });
-    expect((await fieldDb().visits.get(visitId))?.ownerId).toBe(alice);
+    expect((await phoneStore().visits.get(visitId))?.ownerId).toBe(alice);
   });
 
   it("sends only the signed-in volunteer's visits, sightings and photos", async () => {
@@ -42,8 +42,8 @@ describe("a phone shared by several volunteers", () => {
     expect([...server.visits.keys()]).toEqual([mine]);
     expect(server.sightings.size).toBe(2);
     expect(server.photos.size).toBe(1);
-    expect(await fieldDb().visits.get(theirs)).toMatchObject({ outbox: "on-phone", ownerId: bruno });
-    expect(await fieldDb().photos.where("visitId").equals(theirs).first()).toMatchObject({ outbox: "on-phone" });
+    expect(await phoneStore().visits.get(theirs)).toMatchObject({ outbox: "on-phone", ownerId: bruno });
+    expect(await phoneStore().photos.where("visitId").equals(theirs).first()).toMatchObject({ outbox: "on-phone" });
     // Their items go when they sign in on this phone.
     await runOutbox(bruno, server.fetcher);
     expect(server.visits.has(theirs)).toBe(true);
@@ -63,8 +63,8 @@ describe("a phone shared by several volunteers", () => {
     });
     old.close();
 
-    const db = new FieldDatabase(name);
-    setFieldDb(db);
+    const db = new PhoneStore(name);
+    setPhoneStore(db);
     await db.open();
     expect(db.verno).toBe(2);
     expect((await db.visits.get(legacyId))?.ownerId).toBeNull();

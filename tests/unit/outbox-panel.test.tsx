@@ -1,7 +1,7 @@
 import "fake-indexeddb/auto";
 import { fireEvent, render, screen, waitFor, within } from "@testing-library/react";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { FieldDatabase, fieldDb, setFieldDb, setFieldUser, type LocalVisit } from "@/lib/offline/db";
+import { PhoneStore, phoneStore, setPhoneStore, setFieldUser, type LocalVisit } from "@/lib/offline/phone-store";
 
 // The panel reads the controller's state; no pass should run against a real network here.
 vi.mock("@/lib/offline/sync-controller", () => ({
@@ -33,7 +33,7 @@ const photo = (id: string, visitId: string, reason: string) => ({
 });
 
 describe("the outbox panel", () => {
-  beforeEach(() => setFieldDb(new FieldDatabase(`ui-test-${crypto.randomUUID()}`)));
+  beforeEach(() => setPhoneStore(new PhoneStore(`ui-test-${crypto.randomUUID()}`)));
   afterEach(() => {
     vi.restoreAllMocks();
     setFieldUser(null);
@@ -42,35 +42,35 @@ describe("the outbox panel", () => {
   it("words a kept-on-server answer as a note, which the volunteer can dismiss", async () => {
     expect(keptOnServerNote({ visit: true, sightings: 0 })).toMatch(/kept its own copy of the visit details: a record checker had already reviewed it/);
     expect(keptOnServerNote({ visit: true, sightings: 2 })).toMatch(/the visit details and 2 sightings/);
-    await fieldDb().visits.add(visit("a1", alice, { keptOnServer: { visit: false, sightings: 1 } }));
+    await phoneStore().visits.add(visit("a1", alice, { keptOnServer: { visit: false, sightings: 1 } }));
     render(<FieldProviders userId={alice}><OutboxPanel /></FieldProviders>);
     const note = await screen.findByTestId("kept-on-server");
     expect(note).toHaveTextContent("1 sighting");
     expect(note).toHaveTextContent("Your later edits on this phone were not applied.");
     fireEvent.click(within(note).getByRole("button", { name: "Got it" }));
     await waitFor(() => expect(screen.queryByTestId("kept-on-server")).toBeNull());
-    expect((await fieldDb().visits.get("a1"))?.keptOnServer).toBeNull();
+    expect((await phoneStore().visits.get("a1"))?.keptOnServer).toBeNull();
   });
 
   it("shows a refused photo with its reason and removes it from the phone on request", async () => {
-    await fieldDb().visits.add(visit("a1", alice, {}));
-    await fieldDb().photos.add(photo("p1", "a1", "HEIC photos from this phone cannot be read yet."));
+    await phoneStore().visits.add(visit("a1", alice, {}));
+    await phoneStore().photos.add(photo("p1", "a1", "HEIC photos from this phone cannot be read yet."));
     vi.spyOn(window, "confirm").mockReturnValue(true);
     render(<FieldProviders userId={alice}><OutboxPanel /></FieldProviders>);
     const row = await screen.findByTestId("refused-photo");
     expect(row).toHaveTextContent("HEIC photos from this phone cannot be read yet.");
     fireEvent.click(within(row).getByRole("button", { name: "Remove it from this phone" }));
     await waitFor(() => expect(screen.queryByTestId("refused-photo")).toBeNull());
-    expect(await fieldDb().photos.get("p1")).toBeUndefined();
+    expect(await phoneStore().photos.get("p1")).toBeUndefined();
   });
 
   it("counts and lists only the signed-in volunteer's items", async () => {
-    await fieldDb().visits.bulkAdd([
+    await phoneStore().visits.bulkAdd([
       visit("a1", alice, { outbox: "on-phone" }),
       visit("b1", bruno, { outbox: "needs-attention", attention: "Not your transect." }),
       visit("b2", bruno, { outbox: "on-phone" }),
     ]);
-    await fieldDb().photos.add(photo("p2", "b1", "Too large."));
+    await phoneStore().photos.add(photo("p2", "b1", "Too large."));
     render(<FieldProviders userId={alice}><OutboxPanel /></FieldProviders>);
     await waitFor(() => expect(screen.getByTestId("outbox-on-phone")).toHaveTextContent("1"));
     expect(screen.getByTestId("outbox-needs-attention")).toHaveTextContent("0");

@@ -1,6 +1,6 @@
 import "fake-indexeddb/auto";
 import { beforeEach, describe, expect, it } from "vitest";
-import { FieldDatabase, fieldDb, setFieldDb, setFieldUser } from "@/lib/offline/db";
+import { PhoneStore, phoneStore, setPhoneStore, setFieldUser } from "@/lib/offline/phone-store";
 import { runOutbox } from "@/lib/offline/outbox";
 import { addPhoto, addSighting, createVisit, submitVisit } from "@/lib/offline/records";
 import { fakeServer } from "./fake-sync-server";
@@ -22,8 +22,8 @@ const submit = (visitId: string) => submitVisit(visitId, { endTime: "11:30", com
 
 describe("the outbox", () => {
   beforeEach(async () => {
-    const db = new FieldDatabase(`test-${crypto.randomUUID()}`);
-    setFieldDb(db);
+    const db = new PhoneStore(`test-${crypto.randomUUID()}`);
+    setPhoneStore(db);
     setFieldUser(userId);
     await db.open();
   });
@@ -38,7 +38,7 @@ describe("the outbox", () => {
     expect(run.sent).toBe(3);
     expect(server.visits.size).toBe(1);
     expect(server.sightings.size).toBe(2);
-    expect((await fieldDb().visits.get(visitId))?.outbox).toBe("sent");
+    expect((await phoneStore().visits.get(visitId))?.outbox).toBe("sent");
   });
 
   it("with no network, keeps everything on the phone, reports offline and asks for a retry", async () => {
@@ -46,8 +46,8 @@ describe("the outbox", () => {
     await submit(visitId);
     const run = await runOutbox(userId, fakeServer({ down: true }).fetcher);
     expect(run).toMatchObject({ offline: true, retryLater: true });
-    expect((await fieldDb().visits.get(visitId))?.outbox).toBe("on-phone");
-    const kept = await fieldDb().sightings.bulkGet(sightingIds);
+    expect((await phoneStore().visits.get(visitId))?.outbox).toBe("on-phone");
+    const kept = await phoneStore().sightings.bulkGet(sightingIds);
     expect(kept.every((s) => s?.outbox === "on-phone")).toBe(true);
   });
 
@@ -60,7 +60,7 @@ describe("the outbox", () => {
     // The server stored the batch, but the phone never heard: it keeps everything and retries.
     expect(first.retryLater).toBe(true);
     expect(server.writes).toHaveLength(4);
-    expect((await fieldDb().visits.get(visitId))?.outbox).toBe("on-phone");
+    expect((await phoneStore().visits.get(visitId))?.outbox).toBe("on-phone");
 
     const second = await runOutbox(userId, server.fetcher);
     expect(second.sent).toBe(4);
@@ -69,7 +69,7 @@ describe("the outbox", () => {
     const createdIds = server.writes.filter((w) => w.op === "create").map((w) => w.id);
     expect(createdIds.sort()).toEqual([visitId, ...sightingIds].sort());
     expect(server.writes.filter((w) => w.op === "update")).toEqual([]);
-    expect((await fieldDb().visits.get(visitId))?.outbox).toBe("sent");
+    expect((await phoneStore().visits.get(visitId))?.outbox).toBe("sent");
   });
 
   it("resends items a closed tab left 'sending' without storing anything twice", async () => {
@@ -78,13 +78,13 @@ describe("the outbox", () => {
     await submit(visitId);
     await runOutbox(userId, server.fetcher);
     // A tab closed before the answer arrived: the phone still thinks it is sending.
-    await fieldDb().visits.update(visitId, { outbox: "sending" });
-    await fieldDb().sightings.where("visitId").equals(visitId).modify({ outbox: "sending" });
+    await phoneStore().visits.update(visitId, { outbox: "sending" });
+    await phoneStore().sightings.where("visitId").equals(visitId).modify({ outbox: "sending" });
     await runOutbox(userId, server.fetcher);
     expect(server.answers[1]!.every((r) => r.status === "unchanged")).toBe(true);
     expect(server.writes.filter((w) => w.op === "create")).toHaveLength(4);
     expect(new Set(server.writes.map((w) => w.id)).size).toBe(server.writes.length);
-    expect((await fieldDb().visits.get(visitId))?.outbox).toBe("sent");
+    expect((await phoneStore().visits.get(visitId))?.outbox).toBe("sent");
   });
 
   it("marks a refused visit as needing attention with the server's reason, and sends the rest", async () => {
@@ -94,10 +94,10 @@ describe("the outbox", () => {
     await submit(bad.visitId);
     await submit(good.visitId);
     await runOutbox(userId, server.fetcher);
-    const badVisit = await fieldDb().visits.get(bad.visitId);
+    const badVisit = await phoneStore().visits.get(bad.visitId);
     expect(badVisit?.outbox).toBe("needs-attention");
     expect(badVisit?.attention).toMatch(/Not your transect/);
-    expect((await fieldDb().visits.get(good.visitId))?.outbox).toBe("sent");
+    expect((await phoneStore().visits.get(good.visitId))?.outbox).toBe("sent");
   });
 
   it("when signed out, keeps the records, says to sign in again and does not ask for a timed retry", async () => {
@@ -105,7 +105,7 @@ describe("the outbox", () => {
     await submit(visitId);
     const run = await runOutbox(userId, fakeServer({ status401: true }).fetcher);
     expect(run).toMatchObject({ signedOut: true, retryLater: false });
-    const visit = await fieldDb().visits.get(visitId);
+    const visit = await phoneStore().visits.get(visitId);
     expect(visit?.outbox).toBe("on-phone");
     expect(visit?.attention).toMatch(/Sign in again/);
   });
@@ -116,8 +116,8 @@ describe("the outbox", () => {
     await submit(visitId);
     const run = await runOutbox(userId, server.fetcher);
     expect(run).toMatchObject({ retryLater: true, needsAttention: 0 });
-    expect((await fieldDb().visits.get(visitId))?.outbox).toBe("on-phone");
-    expect((await fieldDb().sightings.bulkGet(sightingIds)).map((s) => s?.outbox)).toEqual(["on-phone", "on-phone"]);
+    expect((await phoneStore().visits.get(visitId))?.outbox).toBe("on-phone");
+    expect((await phoneStore().sightings.bulkGet(sightingIds)).map((s) => s?.outbox)).toEqual(["on-phone", "on-phone"]);
   });
 
   it("a 4xx without per-item results puts the batch in 'needs attention' with the server's message instead of retrying", async () => {
@@ -127,9 +127,9 @@ describe("the outbox", () => {
     await submit(visitId);
     const run = await runOutbox(userId, server.fetcher);
     expect(run).toMatchObject({ retryLater: false, needsAttention: 3, sent: 0 });
-    const visit = await fieldDb().visits.get(visitId);
+    const visit = await phoneStore().visits.get(visitId);
     expect(visit).toMatchObject({ outbox: "needs-attention", attention: message });
-    expect((await fieldDb().sightings.bulkGet(sightingIds)).every((s) => s?.outbox === "needs-attention" && s.attention === message)).toBe(true);
+    expect((await phoneStore().sightings.bulkGet(sightingIds)).every((s) => s?.outbox === "needs-attention" && s.attention === message)).toBe(true);
     // Not sent again on the next pass: it waits for the volunteer.
     await runOutbox(userId, server.fetcher);
     expect(server.bodies).toHaveLength(1);
@@ -140,7 +140,7 @@ describe("the outbox", () => {
     const { visitId } = await recordVisit(1);
     await submit(visitId);
     await runOutbox(userId, server.fetcher);
-    expect(await fieldDb().visits.get(visitId)).toMatchObject({ outbox: "needs-attention", attention: expect.stringContaining("413") });
+    expect(await phoneStore().visits.get(visitId)).toMatchObject({ outbox: "needs-attention", attention: expect.stringContaining("413") });
   });
 
   it("tells the volunteer when the server kept its reviewed copy, and does not count it as sent", async () => {
@@ -153,15 +153,15 @@ describe("the outbox", () => {
     const afterReview = fakeServer({ reviewed: new Set([reviewed]) });
     afterReview.sightings.set(reviewed, "reviewed copy");
     afterReview.visits.set(visitId, "server copy");
-    await fieldDb().visits.update(visitId, { outbox: "on-phone" });
-    await fieldDb().sightings.update(reviewed, { count: 40, outbox: "on-phone" });
+    await phoneStore().visits.update(visitId, { outbox: "on-phone" });
+    await phoneStore().sightings.update(reviewed, { count: 40, outbox: "on-phone" });
     const run = await runOutbox(userId, afterReview.fetcher);
     expect(run.keptOnServer).toBe(1);
     expect(run.sent).toBe(1); // the visit itself was updated
-    const visit = await fieldDb().visits.get(visitId);
+    const visit = await phoneStore().visits.get(visitId);
     expect(visit?.outbox).toBe("sent");
     expect(visit?.keptOnServer).toEqual({ visit: false, sightings: 1 });
-    expect((await fieldDb().sightings.get(reviewed))?.outbox).toBe("sent");
+    expect((await phoneStore().sightings.get(reviewed))?.outbox).toBe("sent");
   });
 
   it("refuses edits to a submitted visit", async () => {
@@ -173,8 +173,8 @@ describe("the outbox", () => {
 
 describe("photos in the outbox", () => {
   beforeEach(async () => {
-    const db = new FieldDatabase(`test-${crypto.randomUUID()}`);
-    setFieldDb(db);
+    const db = new PhoneStore(`test-${crypto.randomUUID()}`);
+    setPhoneStore(db);
     setFieldUser(userId);
     await db.open();
   });
@@ -195,7 +195,7 @@ describe("photos in the outbox", () => {
     expect(syncAt).toBeGreaterThanOrEqual(0);
     expect(ticketAt).toBeGreaterThan(syncAt);
     expect(server.photos.has(photoId)).toBe(true);
-    const photo = await fieldDb().photos.get(photoId);
+    const photo = await phoneStore().photos.get(photoId);
     expect(photo?.outbox).toBe("sent");
     expect(photo?.blob.size).toBe(0);
   });
@@ -211,11 +211,11 @@ describe("photos in the outbox", () => {
     const photoId = await visitWithPhoto();
     const run = await runOutbox(userId, server.fetcher);
     expect(run.retryLater).toBe(true);
-    expect(await fieldDb().photos.get(photoId)).toMatchObject({ outbox: "on-phone", attempts: 1 });
+    expect(await phoneStore().photos.get(photoId)).toMatchObject({ outbox: "on-phone", attempts: 1 });
     failing = false;
     const retry = await runOutbox(userId, server.fetcher);
     expect(retry.retryLater).toBe(false);
-    expect((await fieldDb().photos.get(photoId))?.outbox).toBe("sent");
+    expect((await phoneStore().photos.get(photoId))?.outbox).toBe("sent");
   });
 
   it("keeps the photo and asks for a retry when the network fails mid-upload", async () => {
@@ -223,7 +223,7 @@ describe("photos in the outbox", () => {
     const server = fakeServer();
     const dropped = await runOutbox(userId, fakeServer({ photoOverride: () => { throw new TypeError("Failed to fetch"); } }).fetcher);
     expect(dropped).toMatchObject({ offline: true, retryLater: true });
-    expect((await fieldDb().photos.get(photoId))?.outbox).toBe("on-phone");
+    expect((await phoneStore().photos.get(photoId))?.outbox).toBe("on-phone");
     const run = await runOutbox(userId, server.fetcher);
     expect(run.sent).toBe(1);
     expect(server.photos.has(photoId)).toBe(true);
@@ -239,7 +239,7 @@ describe("photos in the outbox", () => {
     lost = false;
     await runOutbox(userId, server.fetcher);
     expect(server.requests.filter((r) => r.startsWith("PUT http://store.test/"))).toHaveLength(2);
-    expect((await fieldDb().photos.get(photoId))?.outbox).toBe("sent");
+    expect((await phoneStore().photos.get(photoId))?.outbox).toBe("sent");
   });
 
   it.each([
@@ -250,7 +250,7 @@ describe("photos in the outbox", () => {
     const photoId = await visitWithPhoto();
     const run = await runOutbox(userId, server.fetcher);
     expect(run).toMatchObject({ needsAttention: 1, retryLater: false });
-    const photo = await fieldDb().photos.get(photoId);
+    const photo = await phoneStore().photos.get(photoId);
     expect(photo?.outbox).toBe("needs-attention");
     expect(photo?.attention).toMatch(reason);
     const before = server.requests.length;
@@ -266,7 +266,7 @@ describe("photos in the outbox", () => {
     const waiting = await visitWithPhoto();
     await expect(removeRefusedPhoto(waiting)).rejects.toThrow(/refused/);
     await removeRefusedPhoto(refused);
-    expect(await fieldDb().photos.get(refused)).toBeUndefined();
-    expect(await fieldDb().photos.get(waiting)).toBeDefined();
+    expect(await phoneStore().photos.get(refused)).toBeUndefined();
+    expect(await phoneStore().photos.get(waiting)).toBeDefined();
   });
 });

@@ -1,6 +1,6 @@
 import "fake-indexeddb/auto";
 import { beforeEach, describe, expect, it } from "vitest";
-import { FieldDatabase, fieldDb, setFieldDb, setFieldUser } from "@/lib/offline/db";
+import { PhoneStore, phoneStore, setPhoneStore, setFieldUser } from "@/lib/offline/phone-store";
 import { runOutbox } from "@/lib/offline/outbox";
 import { hasWorkToSend } from "@/lib/offline/pending-work";
 import { addPhoto, addSighting, createVisit, submitVisit } from "@/lib/offline/records";
@@ -32,7 +32,7 @@ async function claimAndTruth(userId: string, options: Parameters<typeof fakeServ
 
 describe("whether the outbox has anything to send", () => {
   beforeEach(() => {
-    setFieldDb(new FieldDatabase(`test-${crypto.randomUUID()}`));
+    setPhoneStore(new PhoneStore(`test-${crypto.randomUUID()}`));
     setFieldUser(null);
   });
 
@@ -53,7 +53,7 @@ describe("whether the outbox has anything to send", () => {
     // The store answers the photo's PUT with a passing fault, so the photo stays on the phone.
     const firstPass = fakeServer({ photoOverride: (step) => (step === "put" ? new Response(null, { status: 503 }) : undefined) });
     await runOutbox(alice, firstPass.fetcher);
-    const photo = (await fieldDb().photos.toArray())[0]!;
+    const photo = (await phoneStore().photos.toArray())[0]!;
     if (photo.outbox === "sent") throw new Error("the fake store was meant to refuse the first upload");
     expect(await claimAndTruth(alice)).toEqual({ said: true, sent: true });
   });
@@ -62,7 +62,7 @@ describe("whether the outbox has anything to send", () => {
     await visitBy(bruno);
     expect(await claimAndTruth(alice)).toEqual({ said: false, sent: false });
     const legacy = await visitBy(bruno);
-    await fieldDb().visits.update(legacy, { ownerId: undefined });
+    await phoneStore().visits.update(legacy, { ownerId: undefined });
     expect((await claimAndTruth(alice)).said).toBe(true);
   });
 });

@@ -2,7 +2,7 @@ import "fake-indexeddb/auto"; // before dexie loads, so it finds an IndexedDB
 import { fireEvent, render, screen, waitFor, within } from "@testing-library/react";
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import { RecordingScreen } from "@/components/field/visit/recording-screen";
-import { fieldDb } from "@/lib/offline/db";
+import { phoneStore } from "@/lib/offline/phone-store";
 import { addSighting, createVisit, submitVisit } from "@/lib/offline/records";
 import { fieldReference, freshFieldDb, meadowBrown, smallWhite, transectA, transectB } from "./field-fixtures";
 
@@ -40,15 +40,15 @@ describe("recording screen", () => {
     expect(question).toHaveTextContent("Delete Meadow Brown × 3 from this walk?");
     // The safe answer has the focus, so pressing Enter keeps the record.
     expect(within(question).getByRole("button", { name: "Keep it" })).toHaveFocus();
-    expect(await fieldDb().sightings.count()).toBe(2);
+    expect(await phoneStore().sightings.count()).toBe(2);
     fireEvent.click(within(question).getByRole("button", { name: "Keep it" }));
     expect(screen.queryByRole("alertdialog")).toBeNull();
-    expect(await fieldDb().sightings.count()).toBe(2);
+    expect(await phoneStore().sightings.count()).toBe(2);
 
     fireEvent.click(screen.getByRole("button", { name: "Delete Meadow Brown" }));
     fireEvent.click(within(screen.getByRole("alertdialog")).getByRole("button", { name: "Yes, delete it" }));
     await waitFor(() => expect(screen.getAllByTestId("sighting-row")).toHaveLength(1));
-    expect((await fieldDb().sightings.toArray()).map((s) => s.speciesId)).toEqual([smallWhite]);
+    expect((await phoneStore().sightings.toArray()).map((s) => s.speciesId)).toEqual([smallWhite]);
   });
 
   it("asks before deleting the whole walk", async () => {
@@ -56,20 +56,20 @@ describe("recording screen", () => {
     renderScreen(visitId);
     fireEvent.click(await screen.findByRole("button", { name: "Delete this walk" }));
     expect(screen.getByRole("alertdialog")).toHaveTextContent("Delete this walk with its 2 sightings and 0 photos?");
-    expect(await fieldDb().visits.count()).toBe(1);
+    expect(await phoneStore().visits.count()).toBe(1);
     fireEvent.click(screen.getByRole("button", { name: "Keep it" }));
-    expect(await fieldDb().visits.count()).toBe(1);
+    expect(await phoneStore().visits.count()).toBe(1);
     // Confirming deletes it (jsdom cannot follow the page change that comes after; the store is what matters).
     fireEvent.click(screen.getByRole("button", { name: "Delete this walk" }));
     fireEvent.click(screen.getByRole("button", { name: "Yes, delete the walk" }));
-    await waitFor(async () => expect(await fieldDb().visits.count()).toBe(0));
-    expect(await fieldDb().sightings.count()).toBe(0);
+    await waitFor(async () => expect(await phoneStore().visits.count()).toBe(0));
+    expect(await phoneStore().sightings.count()).toBe(0);
   });
 
   it("lets a visit the server sent back be corrected in every field and submitted again", async () => {
     const visitId = await visitWithSightings();
     await submitVisit(visitId, { endTime: "11:45", completeList: true, notes: "Breezy on the ridge" });
-    await fieldDb().visits.update(visitId, { outbox: "needs-attention", attention: "The visit date is outside the season." });
+    await phoneStore().visits.update(visitId, { outbox: "needs-attention", attention: "The visit date is outside the season." });
     renderScreen(visitId);
 
     fireEvent.click(await screen.findByRole("button", { name: "Correct it" }));
@@ -96,7 +96,7 @@ describe("recording screen", () => {
     fireEvent.click(within(form).getByRole("button", { name: "Save details" }));
     await waitFor(() => expect(screen.queryByRole("region", { name: "Visit details" })).toBeNull());
 
-    const corrected = (await fieldDb().visits.get(visitId))!;
+    const corrected = (await phoneStore().visits.get(visitId))!;
     expect(corrected).toMatchObject({
       phase: "draft",
       transectId: transectB,
@@ -119,20 +119,20 @@ describe("recording screen", () => {
     // DUN-02 has 4 sections: the Small White in section 6 must be changed before it can go.
     fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
     expect(await screen.findByRole("alert")).toHaveTextContent("DUN-02 has 4 sections: change the section of Small White first.");
-    expect((await fieldDb().visits.get(visitId))!.phase).toBe("draft");
-    const white = (await fieldDb().sightings.toArray()).find((s) => s.speciesId === smallWhite)!;
-    await fieldDb().sightings.update(white.id, { section: 2 });
+    expect((await phoneStore().visits.get(visitId))!.phase).toBe("draft");
+    const white = (await phoneStore().sightings.toArray()).find((s) => s.speciesId === smallWhite)!;
+    await phoneStore().sightings.update(white.id, { section: 2 });
     await screen.findByText(/^Section 2/);
     fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
     await screen.findByTestId("visit-submitted");
-    expect(await fieldDb().visits.get(visitId)).toMatchObject({ phase: "submitted", outbox: "on-phone", attention: null, transectId: transectB, endTime: "11:45" });
+    expect(await phoneStore().visits.get(visitId)).toMatchObject({ phase: "submitted", outbox: "on-phone", attention: null, transectId: transectB, endTime: "11:45" });
     expect(syncNow).toHaveBeenCalled();
   });
 
   it("refuses a corrected start time after the recorded end time", async () => {
     const visitId = await visitWithSightings();
     await submitVisit(visitId, { endTime: "11:45", completeList: false, notes: null });
-    await fieldDb().visits.update(visitId, { outbox: "needs-attention", attention: "Check the times." });
+    await phoneStore().visits.update(visitId, { outbox: "needs-attention", attention: "Check the times." });
     renderScreen(visitId);
     fireEvent.click(await screen.findByRole("button", { name: "Correct it" }));
     const form = await screen.findByRole("region", { name: "Visit details" });
@@ -140,6 +140,6 @@ describe("recording screen", () => {
     fireEvent.change(within(form).getByLabelText("Start time"), { target: { value: "12:00" } });
     fireEvent.click(within(form).getByRole("button", { name: "Save details" }));
     expect(await within(form).findByRole("alert")).toHaveTextContent("The walk ended at 11:45");
-    expect((await fieldDb().visits.get(visitId))!.startTime).toBe("10:30");
+    expect((await phoneStore().visits.get(visitId))!.startTime).toBe("10:30");
   });
 });

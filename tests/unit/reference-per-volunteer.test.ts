@@ -1,6 +1,6 @@
 import "fake-indexeddb/auto";
 import { beforeEach, describe, expect, it } from "vitest";
-import { FieldDatabase, setFieldDb, setFieldUser } from "@/lib/offline/db";
+import { PhoneStore, setPhoneStore, setFieldUser } from "@/lib/offline/phone-store";
 import { keepReference, phoneReference, type FieldReference } from "@/lib/offline/reference";
 
 const alice = "3d5e7f90-1a2b-4c3d-8e4f-5a6b7c8d9e0f";
@@ -9,7 +9,7 @@ const copy = (savedAt: string) => ({ savedAt, transects: [], checklist: [], seen
 
 describe("the phone's copy of a volunteer's transects and checklist", () => {
   beforeEach(() => {
-    setFieldDb(new FieldDatabase(`test-${crypto.randomUUID()}`));
+    setPhoneStore(new PhoneStore(`test-${crypto.randomUUID()}`));
   });
 
   it("is kept per volunteer, so a shared phone never shows one volunteer's transects to the next", async () => {

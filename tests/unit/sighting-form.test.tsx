@@ -2,7 +2,7 @@ import "fake-indexeddb/auto"; // before dexie loads, so it finds an IndexedDB
 import { fireEvent, render, screen, waitFor, within } from "@testing-library/react";
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import { SightingForm } from "@/components/field/visit/sighting-form";
-import { fieldDb } from "@/lib/offline/db";
+import { phoneStore } from "@/lib/offline/phone-store";
 import { addPhoto, addSighting, createVisit } from "@/lib/offline/records";
 import { fieldReference, freshFieldDb, jpeg, meadowBrown, stubObjectUrls, transectA } from "./field-fixtures";
 
@@ -44,8 +44,8 @@ describe("sighting form", () => {
     fireEvent.click(save);
     expect(save).toBeDisabled();
     await waitFor(() => expect(onDone).toHaveBeenCalledTimes(1));
-    expect(await fieldDb().sightings.count()).toBe(1);
-    expect(await fieldDb().photos.count()).toBe(1);
+    expect(await phoneStore().sightings.count()).toBe(1);
+    expect(await phoneStore().photos.count()).toBe(1);
   });
 
   it("shows a chosen photo as a thumbnail that can be removed before saving", async () => {
@@ -61,7 +61,7 @@ describe("sighting form", () => {
     expect(urls.revoked).toEqual(["blob:test/1"]);
     fireEvent.click(screen.getByRole("button", { name: "Save record" }));
     await waitFor(() => expect(onDone).toHaveBeenCalled());
-    const stored = await fieldDb().photos.toArray();
+    const stored = await phoneStore().photos.toArray();
     expect(stored).toHaveLength(1);
     expect(stored[0]!.bytes).toBe(jpeg("second-one.jpg").size); // the one not removed
   });
@@ -70,7 +70,7 @@ describe("sighting form", () => {
     const visitId = await draftVisit();
     const sightingId = await addSighting(visitId, { speciesId: meadowBrown, count: 2, section: 1, latitude: null, longitude: null, accuracyMetres: null, note: null });
     await addPhoto(visitId, sightingId, jpeg("kept.jpg"));
-    const editing = (await fieldDb().sightings.get(sightingId))!;
+    const editing = (await phoneStore().sightings.get(sightingId))!;
 
     // Removing then cancelling keeps the photo.
     const first = renderForm(visitId, { editing });
@@ -79,7 +79,7 @@ describe("sighting form", () => {
     expect(screen.queryByRole("img")).toBeNull();
     fireEvent.click(screen.getByRole("button", { name: "Cancel" }));
     first.unmount();
-    expect(await fieldDb().photos.count()).toBe(1);
+    expect(await phoneStore().photos.count()).toBe(1);
 
     // Removing then saving deletes it from the phone.
     const second = renderForm(visitId, { editing });
@@ -87,7 +87,7 @@ describe("sighting form", () => {
     fireEvent.click(screen.getByRole("button", { name: "Remove Photo 1" }));
     fireEvent.click(screen.getByRole("button", { name: "Save record" }));
     await waitFor(() => expect(second.onDone).toHaveBeenCalled());
-    expect(await fieldDb().photos.count()).toBe(0);
+    expect(await phoneStore().photos.count()).toBe(0);
     second.unmount();
     expect(urls.made.length).toBeGreaterThan(0);
     expect([...urls.revoked].sort()).toEqual([...urls.made].sort());
@@ -98,16 +98,16 @@ describe("sighting form", () => {
     const { onDone } = renderForm(visitId);
     chooseSpecies("Meadow");
     attach(jpeg("brown.jpg"));
-    const add = vi.spyOn(fieldDb().photos, "add").mockRejectedValueOnce(new Error("The phone's storage is full."));
+    const add = vi.spyOn(phoneStore().photos, "add").mockRejectedValueOnce(new Error("The phone's storage is full."));
     fireEvent.click(screen.getByRole("button", { name: "Save record" }));
     expect(await screen.findByRole("alert")).toHaveTextContent("storage is full");
     expect(onDone).not.toHaveBeenCalled();
-    expect(await fieldDb().sightings.count()).toBe(0);
+    expect(await phoneStore().sightings.count()).toBe(0);
     // The form is usable again: a second try stores it once.
     add.mockRestore();
     fireEvent.click(screen.getByRole("button", { name: "Save record" }));
     await waitFor(() => expect(onDone).toHaveBeenCalledTimes(1));
-    expect(await fieldDb().sightings.count()).toBe(1);
-    expect(await fieldDb().photos.count()).toBe(1);
+    expect(await phoneStore().sightings.count()).toBe(1);
+    expect(await phoneStore().photos.count()).toBe(1);
   });
 });

@@ -1,7 +1,7 @@
 import "fake-indexeddb/auto";
 import { fireEvent, render, screen, waitFor } from "@testing-library/react";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { FieldDatabase, setFieldDb, setFieldUser } from "@/lib/offline/db";
+import { PhoneStore, setPhoneStore, setFieldUser } from "@/lib/offline/phone-store";
 import { addSighting, createVisit } from "@/lib/offline/records";
 
 const signOutAction = vi.hoisted(() => vi.fn(async () => {}));
@@ -20,7 +20,7 @@ async function draftBy(userId: string, sightings: number) {
 
 describe("signing out", () => {
   beforeEach(() => {
-    setFieldDb(new FieldDatabase(`ui-test-${crypto.randomUUID()}`));
+    setPhoneStore(new PhoneStore(`ui-test-${crypto.randomUUID()}`));
     signOutAction.mockClear();
   });
   afterEach(() => vi.restoreAllMocks());

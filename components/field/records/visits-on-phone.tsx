@@ -1,6 +1,6 @@
 "use client";
 
-import { belongsTo, fieldDb } from "@/lib/offline/db";
+import { belongsTo, phoneStore } from "@/lib/offline/phone-store";
 import { visitsStillOnPhone, type VisitOnPhone } from "@/lib/offline/records";
 import { referenceKey, type FieldReference } from "@/lib/offline/reference";
 import { useFieldUserId } from "../field-providers";
@@ -23,7 +23,7 @@ export function phoneStateOf({ visit, photosWaiting }: VisitOnPhone): { label: s
 export function VisitsOnPhone() {
   const userId = useFieldUserId();
   const data = useLive(async () => {
-    const [visits, reference] = await Promise.all([visitsStillOnPhone(), fieldDb().reference.get(referenceKey())]);
+    const [visits, reference] = await Promise.all([visitsStillOnPhone(), phoneStore().reference.get(referenceKey())]);
     // Only the signed-in volunteer's visits: a shared phone may hold someone else's too.
     const own = visits.filter((item) => belongsTo(item.visit, userId));
     return { visits: own, transects: (reference?.value as FieldReference | undefined)?.transects ?? [] };

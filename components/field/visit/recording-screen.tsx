@@ -5,7 +5,7 @@ import { beaufortScale } from "@/lib/field/beaufort";
 import type { ConditionsRules } from "@/lib/field/conditions";
 import type { ChecklistEntry } from "@/lib/field/species-search";
 import { timeNow } from "@/lib/field/clock";
-import { fieldDb, type LocalSighting } from "@/lib/offline/db";
+import { phoneStore, type LocalSighting } from "@/lib/offline/phone-store";
 import { deleteDraftVisit, deleteSighting, returnToDraft, submitVisit } from "@/lib/offline/records";
 import { syncNow } from "@/lib/offline/sync-controller";
 import { useLive } from "../use-live";
@@ -36,7 +36,7 @@ export function RecordingScreen({
   rules: ConditionsRules;
 }) {
   const data = useLive(async () => {
-    const db = fieldDb();
+    const db = phoneStore();
     const visit = await db.visits.get(visitId);
     const sightings = await db.sightings.where("visitId").equals(visitId).toArray();
     const photos = await db.photos.where("visitId").equals(visitId).toArray();

@@ -2,7 +2,7 @@
 
 import { useMemo, useRef, useState } from "react";
 import { searchSpecies, type ChecklistEntry } from "@/lib/field/species-search";
-import { fieldDb, type LocalSighting } from "@/lib/offline/db";
+import { phoneStore, type LocalSighting } from "@/lib/offline/phone-store";
 import { saveSightingWithPhotos } from "@/lib/offline/records";
 import { Stepper } from "../stepper";
 import { useLive } from "../use-live";
@@ -43,7 +43,7 @@ export function SightingForm({
   const [saving, setSaving] = useState(false);
   // A ref, not only state: two taps can land before React re-renders the disabled button.
   const savingRef = useRef(false);
-  const stored = useLive(async () => (editing ? fieldDb().photos.where("sightingId").equals(editing.id).sortBy("createdAt") : []), [editing?.id]);
+  const stored = useLive(async () => (editing ? phoneStore().photos.where("sightingId").equals(editing.id).sortBy("createdAt") : []), [editing?.id]);
   const storedPhotos = (stored ?? []).filter((p) => !removedIds.includes(p.id));
   const matches = useMemo(() => searchSpecies(checklist, query, seenHere, 8), [checklist, query, seenHere]);
   const chosen = checklist.find((s) => s.id === speciesId);

@@ -6,7 +6,7 @@ import { useForm, useWatch } from "react-hook-form";
 import { beaufortScale } from "@/lib/field/beaufort";
 import { conditionWarnings, type ConditionsRules } from "@/lib/field/conditions";
 import { skyLabel, startVisitSchema, timeNow, todayLocal, type StartVisitInput, type StartVisitValues } from "@/lib/field/visit-form";
-import type { LocalVisit } from "@/lib/offline/db";
+import type { LocalVisit } from "@/lib/offline/phone-store";
 import { createVisit, updateVisit } from "@/lib/offline/records";
 import { skyValues } from "@/lib/sync/protocol";
 

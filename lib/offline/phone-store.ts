@@ -93,7 +93,7 @@ export function belongsTo(visit: Pick<LocalVisit, "ownerId">, userId: string | n
   return visit.ownerId == null || visit.ownerId === userId;
 }
 
-export class FieldDatabase extends Dexie {
+export class PhoneStore extends Dexie {
   visits!: EntityTable<LocalVisit, "id">;
   sightings!: EntityTable<LocalSighting, "id">;
   photos!: EntityTable<LocalPhoto, "id">;
@@ -128,14 +128,14 @@ export class FieldDatabase extends Dexie {
   }
 }
 
-let instance: FieldDatabase | undefined;
+let instance: PhoneStore | undefined;
 
-export function fieldDb(): FieldDatabase {
-  instance ??= new FieldDatabase();
+export function phoneStore(): PhoneStore {
+  instance ??= new PhoneStore();
   return instance;
 }
 
 /** For tests: use a separately named database. */
-export function setFieldDb(db: FieldDatabase): void {
+export function setPhoneStore(db: PhoneStore): void {
   instance = db;
 }

@@ -11,7 +11,7 @@ const MAX_ATTEMPTS = 8;
  * Sends due e-mails from the outbox. Rows are claimed with SKIP LOCKED so several workers can
  * run side by side; a failed send is retried with exponential backoff, then marked failed.
  */
-export async function flushOutbox(database: Database): Promise<{ sent: number; failed: number }> {
+export async function sendQueuedMail(database: Database): Promise<{ sent: number; failed: number }> {
   const claimed = await database.transaction(async (tx) => {
     const due = await tx
       .select({ id: emailOutbox.id })
