@@ -3,7 +3,7 @@ import type { NextConfig } from "next";
 const nextConfig: NextConfig = {
   // Keeps `unauthorized()` / `forbidden()` available so pages answer 401/403 with their own screens.
   experimental: { authInterrupts: true },
-  serverExternalPackages: ["sharp", "pg-boss", "postgres", "libheif-js", "piscina"],
+  serverExternalPackages: ["sharp", "postgres", "libheif-js", "piscina"],
   poweredByHeader: false,
   async headers() {
     return [
