@@ -6,17 +6,14 @@ import { redirect } from "next/navigation";
 import { signIn } from "@/auth";
 import { db } from "@/db/client";
 import { users } from "@/db/schema";
+import { safeReturnPath } from "@/lib/auth/return-path";
 import { roleHome } from "@/lib/auth/roles";
+import { env } from "@/lib/env";
 import { fieldErrorsOf } from "@/lib/validation";
 import type { FieldErrors } from "@/lib/errors";
 import { signInSchema } from "./schema";
 
 export type SignInResult = { ok: false; message: string; fieldErrors?: FieldErrors };
-
-// Only same-site paths are followed after sign-in, so a crafted link cannot bounce people elsewhere.
-function safeReturnPath(from: string | undefined): string | null {
-  return from && from.startsWith("/") && !from.startsWith("//") && from !== "/" ? from : null;
-}
 
 export async function signInAction(input: unknown): Promise<SignInResult> {
   const parsed = signInSchema.safeParse(input);
@@ -34,7 +31,7 @@ export async function signInAction(input: unknown): Promise<SignInResult> {
     }
     throw error;
   }
-  // Signed in: go straight to the page asked for, or to the role's own home.
+  // Signed in: go straight to the page asked for when it is on this site, or to the role's own home.
   const [user] = await db().select({ role: users.role }).from(users).where(eq(sql`lower(${users.email})`, parsed.data.email.toLowerCase())).limit(1);
-  redirect(safeReturnPath(parsed.data.from) ?? (user ? roleHome[user.role] : "/"));
+  redirect(safeReturnPath(parsed.data.from, env().APP_URL) ?? (user ? roleHome[user.role] : "/"));
 }

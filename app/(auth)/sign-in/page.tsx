@@ -2,7 +2,9 @@ import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { LogoMark } from "@/components/brand/logo-mark";
 import { currentActor } from "@/lib/auth/guard";
+import { safeReturnPath } from "@/lib/auth/return-path";
 import { roleHome } from "@/lib/auth/roles";
+import { env } from "@/lib/env";
 import { SignInForm } from "./sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
@@ -22,7 +24,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       </div>
       <div className="card">
         <h2 className="mb-4 text-xl font-bold">Sign in to your network</h2>
-        <SignInForm from={typeof from === "string" ? from : undefined} />
+        <SignInForm from={safeReturnPath(from, env().APP_URL) ?? undefined} />
       </div>
       <p className="mt-6 text-sm text-shingle-600">
         New here? Your network organiser sends you an invitation by e-mail. Forgotten your password? Ask them to send a new invitation.
