@@ -1,11 +1,12 @@
+import { NetworkProviders } from "@/components/network/network-providers";
 import { AppShell } from "@/components/shell/app-shell";
 import { requirePageActor } from "@/lib/auth/guard";
 
 export default async function NetworkLayout({ children }: { children: React.ReactNode }) {
   const actor = await requirePageActor(["organiser"], "/network");
   return (
-    <AppShell actor={actor} nav={[{ href: "/network", label: "Overview" }, { href: "/network/people", label: "People" }]}>
-      {children}
+    <AppShell actor={actor} nav={[{ href: "/network", label: "Overview" }, { href: "/network/people", label: "People" }, { href: "/network/history", label: "History" }]}>
+      <NetworkProviders>{children}</NetworkProviders>
     </AppShell>
   );
 }

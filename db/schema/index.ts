@@ -5,3 +5,4 @@ export * from "./field";
 export * from "./review";
 export * from "./analysis";
 export * from "./comms";
+export * from "./history";

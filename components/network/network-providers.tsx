@@ -1,0 +1,10 @@
+"use client";
+
+import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
+import { useState } from "react";
+
+/** Client-side data for the organisers' pages: react-query against our route handlers. */
+export function NetworkProviders({ children }: { children: React.ReactNode }) {
+  const [client] = useState(() => new QueryClient({ defaultOptions: { queries: { staleTime: 30_000, retry: 1, refetchOnWindowFocus: false } } }));
+  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+}
