@@ -8,6 +8,7 @@ import { users } from "@/db/schema";
 import { decoyHash, verifyPassword } from "@/lib/auth/password";
 import { isSignInBlocked, recordSignInAttempt } from "@/lib/auth/rate-limit";
 import { env } from "@/lib/env";
+import { clientAddress } from "@/lib/http/client-address";
 
 class TooManyAttempts extends CredentialsSignin {
   code = "too_many_attempts";
@@ -17,11 +18,6 @@ const credentialsSchema = z.object({
   email: z.email().max(320).transform((v) => v.trim().toLowerCase()),
   password: z.string().min(1).max(200),
 });
-
-function clientAddress(request: Request): string {
-  const forwarded = request.headers.get("x-forwarded-for")?.split(",")[0]?.trim();
-  return forwarded || request.headers.get("x-real-ip") || "local";
-}
 
 export const { handlers, auth, signIn, signOut } = NextAuth({
   ...authConfig,
@@ -33,7 +29,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) return null;
         const { email, password } = parsed.data;
-        const ip = clientAddress(request);
+        const ip = clientAddress(request.headers);
         if (await isSignInBlocked(email, ip)) throw new TooManyAttempts();
 
         const [user] = await db()
