@@ -25,12 +25,17 @@ export const species = pgTable(
   ],
 );
 
-export const speciesTags = pgTable("species_tags", {
-  id: uuid("id").primaryKey().defaultRandom(),
-  slug: text("slug").notNull().unique(),
-  label: text("label").notNull(),
-  description: text("description"),
-});
+export const speciesTags = pgTable(
+  "species_tags",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    slug: text("slug").notNull().unique(),
+    label: text("label").notNull(),
+    description: text("description"),
+  },
+  // Imports name tags by label or slug, so a label is one tag's only, in any letter case.
+  (t) => [uniqueIndex("species_tags_label_idx").on(sql`lower(${t.label})`)],
+);
 
 export const speciesTagLinks = pgTable(
   "species_tag_links",
@@ -39,4 +44,52 @@ export const speciesTagLinks = pgTable(
     tagId: uuid("tag_id").notNull().references(() => speciesTags.id, { onDelete: "cascade" }),
   },
   (t) => [primaryKey({ columns: [t.speciesId, t.tagId] }), index("species_tag_links_tag_idx").on(t.tagId)],
+);
+
+/**
+ * Other names an entry is known by (older or alternative scientific names). A name is one entry's
+ * only: unique here in any letter case, and never another entry's scientific name (checked by the
+ * checklist's writes, which hold the checklist lock: lib/queries/checklist-lock.ts).
+ */
+export const speciesSynonyms = pgTable(
+  "species_synonyms",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    speciesId: uuid("species_id").notNull().references(() => species.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("species_synonyms_name_idx").on(sql`lower(${t.name})`), index("species_synonyms_species_idx").on(t.speciesId)],
+);
+
+/**
+ * The species an aggregate (rank species_aggregate: similar species often left at the pair, such as
+ * two skippers told apart only in the hand) stands for.
+ */
+export const speciesAggregateMembers = pgTable(
+  "species_aggregate_members",
+  {
+    aggregateId: uuid("aggregate_id").notNull().references(() => species.id, { onDelete: "cascade" }),
+    memberId: uuid("member_id").notNull().references(() => species.id, { onDelete: "cascade" }),
+  },
+  (t) => [
+    primaryKey({ columns: [t.aggregateId, t.memberId] }),
+    index("species_aggregate_members_member_idx").on(t.memberId),
+    check("species_aggregate_members_distinct", sql`${t.aggregateId} <> ${t.memberId}`),
+  ],
+);
+
+/**
+ * Entries folded into another by a merge. The folded row is gone; its id stays here so that a
+ * phone still holding it (an unsent sighting, an old copy of the checklist) can be re-pointed.
+ */
+export const speciesMerges = pgTable(
+  "species_merges",
+  {
+    fromSpeciesId: uuid("from_species_id").primaryKey(),
+    fromScientificName: text("from_scientific_name").notNull(),
+    intoSpeciesId: uuid("into_species_id").notNull().references(() => species.id, { onDelete: "cascade" }),
+    mergedAt: timestamp("merged_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("species_merges_into_idx").on(t.intoSpeciesId)],
 );
