@@ -44,7 +44,10 @@ export const invitations = pgTable(
   (t) => [uniqueIndex("invitations_token_hash_idx").on(t.tokenHash), index("invitations_email_idx").on(sql`lower(${t.email})`)],
 );
 
-/** Failed and successful sign-in attempts, for rate limiting by e-mail and by address. */
+/**
+ * Sign-in attempts for the limits in lib/auth/rate-limit.ts, by e-mail, by address and by the pair.
+ * A row is written as a failure before the password is checked and marked a success afterwards.
+ */
 export const signInAttempts = pgTable(
   "sign_in_attempts",
   {
@@ -57,7 +60,21 @@ export const signInAttempts = pgTable(
   (t) => [
     index("sign_in_attempts_email_idx").on(t.emailKey, t.attemptedAt),
     index("sign_in_attempts_ip_idx").on(t.ipKey, t.attemptedAt),
+    index("sign_in_attempts_pair_idx").on(t.emailKey, t.ipKey, t.attemptedAt),
+    // Old rows are deleted on every attempt.
+    index("sign_in_attempts_attempted_at_idx").on(t.attemptedAt),
   ],
+);
+
+/** Invitation tokens that matched no open invitation, by address (lib/auth/invitation-limit.ts). */
+export const invitationTokenFailures = pgTable(
+  "invitation_token_failures",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    ipKey: text("ip_key").notNull(),
+    attemptedAt: timestamp("attempted_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("invitation_token_failures_ip_idx").on(t.ipKey, t.attemptedAt), index("invitation_token_failures_attempted_at_idx").on(t.attemptedAt)],
 );
 
 /** One deployment serves one network: a single settings row (id = 1). */
