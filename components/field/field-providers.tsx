@@ -47,9 +47,13 @@ async function registerServiceWorker() {
 
 const FieldUserContext = createContext<string | null>(null);
 
-/** The signed-in volunteer's id, to show and send only their items on a shared phone. */
+/**
+ * The signed-in volunteer's id, to show, edit and send only their items on a shared phone.
+ * Outside the providers (a screen rendered on its own) it is the one the phone's store was
+ * told about, which the local writes check too.
+ */
 export function useFieldUserId(): string | null {
-  return useContext(FieldUserContext);
+  return useContext(FieldUserContext) ?? fieldUser();
 }
 
 /**

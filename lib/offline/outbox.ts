@@ -3,6 +3,7 @@ import { belongsTo, phoneStore, isWaiting, type LocalSighting, type LocalVisit, 
 import { batchBody, encode, planBatches, type BatchLimits, type VisitGroup } from "./outbox-batches";
 import { applyResults, backToPhone, refuseBatch, setSightings, type OutboxBatch } from "./outbox-results";
 import { sendPhotos } from "./photo-upload";
+import { ownWalk } from "./records";
 import { isPassingFault, readServerError } from "./server-answers";
 
 /**
@@ -191,5 +192,6 @@ export async function unsentOnPhone(userId: string): Promise<UnsentOnPhone> {
 
 /** The volunteer has read that the server kept its copy; the note can go. */
 export async function acknowledgeKeptOnServer(visitId: string): Promise<void> {
+  await ownWalk(visitId);
   await phoneStore().visits.update(visitId, { keptOnServer: null });
 }

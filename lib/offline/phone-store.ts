@@ -12,9 +12,9 @@ export type KeptOnServer = { visit: boolean; sightings: number };
 export type LocalVisit = {
   id: string;
   /**
-   * The signed-in volunteer who recorded it, so a shared phone sends and lists each person's
-   * own visits. Empty on visits recorded before owners were kept: the first volunteer who
-   * syncs on this phone claims them. Only a filter on the phone: the server checks every item.
+   * The signed-in volunteer who recorded it (`createVisit` refuses to start a walk without one),
+   * so a shared phone sends, lists and edits each person's own visits only. Empty on visits
+   * recorded before owners were kept. The server checks every item again.
    */
   ownerId?: string | null;
   transectId: string;
@@ -121,10 +121,6 @@ export class PhoneStore extends Dexie {
             visit.keptOnServer ??= null;
           }),
       );
-    // Every way of creating a visit stamps the signed-in volunteer, without each caller passing it.
-    this.visits.hook("creating", (_id, visit) => {
-      if (visit.ownerId == null) visit.ownerId = signedInUserId;
-    });
   }
 }
 

@@ -1,6 +1,7 @@
 import { photoErrorCodes, type PhotoUploadTicket } from "@/lib/photos/protocol";
 import { phoneStore, isWaiting, type LocalPhoto } from "./phone-store";
 import type { OutboxRun } from "./outbox";
+import { ownWalk } from "./records";
 import { isPassingFault, readServerError } from "./server-answers";
 
 /**
@@ -89,5 +90,6 @@ export async function removeRefusedPhoto(photoId: string): Promise<void> {
   const photos = phoneStore().photos;
   const photo = await photos.get(photoId);
   if (photo?.outbox !== "needs-attention") throw new Error("Only a photo the server refused can be removed here.");
+  await ownWalk(photo.visitId);
   await photos.delete(photoId);
 }

@@ -1,8 +1,27 @@
-import { phoneStore, type LocalPhoto, type LocalSighting, type LocalVisit } from "./phone-store";
+import { fieldUser, phoneStore, type LocalPhoto, type LocalSighting, type LocalVisit } from "./phone-store";
 
 // Local edits. Everything here works with no signal; the outbox sends submitted visits later.
+// On a phone shared by several volunteers each walk is its owner's alone: every write checks
+// the owner here, whatever screen it comes from (the server checks again on sync).
 
 const now = () => new Date().toISOString();
+
+export const SOMEONE_ELSES_WALK = "This walk belongs to someone else on this phone.";
+
+function signedIn(): string {
+  const userId = fieldUser();
+  if (!userId) throw new Error("Sign in to record a walk on this phone.");
+  return userId;
+}
+
+/** The walk, if the signed-in volunteer owns it (a walk whose owner is not known is nobody's yet). */
+export async function ownWalk(visitId: string): Promise<LocalVisit> {
+  const visit = await phoneStore().visits.get(visitId);
+  if (!visit) throw new Error("That visit is not on this phone.");
+  const userId = fieldUser();
+  if (userId == null || visit.ownerId !== userId) throw new Error(SOMEONE_ELSES_WALK);
+  return visit;
+}
 
 export type NewVisit = Pick<
   LocalVisit,
@@ -10,10 +29,12 @@ export type NewVisit = Pick<
 >;
 
 export async function createVisit(input: NewVisit): Promise<string> {
+  const ownerId = signedIn();
   const id = crypto.randomUUID();
   await phoneStore().visits.add({
     ...input,
     id,
+    ownerId,
     endTime: null,
     completeList: false,
     notes: null,
@@ -28,8 +49,7 @@ export async function createVisit(input: NewVisit): Promise<string> {
 }
 
 async function editableVisit(visitId: string): Promise<LocalVisit> {
-  const visit = await phoneStore().visits.get(visitId);
-  if (!visit) throw new Error("That visit is not on this phone.");
+  const visit = await ownWalk(visitId);
   if (visit.phase !== "draft") throw new Error("This visit has been submitted and can no longer be changed here.");
   return visit;
 }
@@ -139,8 +159,8 @@ export async function submitVisit(visitId: string, finish: { endTime: string; co
 
 /** Lets the volunteer correct a visit the server could not accept, then submit it again. */
 export async function returnToDraft(visitId: string): Promise<void> {
-  const visit = await phoneStore().visits.get(visitId);
-  if (!visit || visit.outbox !== "needs-attention") throw new Error("Only a visit that needs attention can be reopened.");
+  const visit = await ownWalk(visitId);
+  if (visit.outbox !== "needs-attention") throw new Error("Only a visit that needs attention can be reopened.");
   await phoneStore().visits.update(visitId, { phase: "draft", outbox: "on-phone" });
 }
 

@@ -1,6 +1,6 @@
 // Shared set-up for the field screens' component tests (jsdom + fake-indexeddb).
 import "fake-indexeddb/auto";
-import { PhoneStore, setPhoneStore } from "@/lib/offline/phone-store";
+import { PhoneStore, setFieldUser, setPhoneStore } from "@/lib/offline/phone-store";
 import type { FieldReference } from "@/lib/offline/reference";
 
 export const transectA = "6f1c1f7e-2b7a-4c1e-9a55-5d2f0c7b9a10";
@@ -35,10 +35,18 @@ export function fieldReference(): FieldReference {
   } as unknown as FieldReference;
 }
 
-/** A separately named IndexedDB for each test, so tests never see each other's records. */
+/** The volunteer signed in on the phone in the field screens' tests. */
+export const fieldVolunteer = "3d9e0f1a-2b3c-4d5e-8f70-8192a3b4c5d6";
+export const otherVolunteer = "9a8b7c6d-5e4f-4a3b-8c2d-1e0f9a8b7c6d";
+
+/**
+ * A separately named IndexedDB for each test, so tests never see each other's records, with
+ * `fieldVolunteer` signed in (walks are started and edited only by a signed-in volunteer).
+ */
 export function freshFieldDb(): PhoneStore {
   const db = new PhoneStore(`ui-test-${crypto.randomUUID()}`);
   setPhoneStore(db);
+  setFieldUser(fieldVolunteer);
   return db;
 }
 

@@ -2,9 +2,9 @@ import "fake-indexeddb/auto"; // before dexie loads, so it finds an IndexedDB
 import { fireEvent, render, screen, waitFor, within } from "@testing-library/react";
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import { RecordingScreen } from "@/components/field/visit/recording-screen";
-import { phoneStore } from "@/lib/offline/phone-store";
+import { phoneStore, setFieldUser } from "@/lib/offline/phone-store";
 import { addSighting, createVisit, submitVisit } from "@/lib/offline/records";
-import { fieldReference, freshFieldDb, meadowBrown, smallWhite, transectA, transectB } from "./field-fixtures";
+import { fieldReference, freshFieldDb, meadowBrown, otherVolunteer, smallWhite, transectA, transectB } from "./field-fixtures";
 
 // The outbox is another part's job; here it only has to be asked to run.
 const syncNow = vi.hoisted(() => vi.fn());
@@ -141,5 +141,27 @@ describe("recording screen", () => {
     fireEvent.click(within(form).getByRole("button", { name: "Save details" }));
     expect(await within(form).findByRole("alert")).toHaveTextContent("The walk ended at 11:45");
     expect((await phoneStore().visits.get(visitId))!.startTime).toBe("10:30");
+  });
+
+  it("does not open another volunteer's walk on a shared phone, and offers the way back", async () => {
+    const visitId = await visitWithSightings();
+    setFieldUser(otherVolunteer);
+    renderScreen(visitId);
+    expect(await screen.findByText("This walk belongs to someone else on this phone.")).toBeInTheDocument();
+    expect(screen.getByRole("link", { name: "Back to my transects" })).toHaveAttribute("href", "/field");
+    // Nothing of the walk is shown, and nothing can be changed from here.
+    expect(screen.queryByText(/Meadow Brown/)).toBeNull();
+    expect(screen.queryByRole("button")).toBeNull();
+    expect(await phoneStore().sightings.count()).toBe(2);
+  });
+
+  it("does not open a walk whose owner the phone does not know, and says where to claim it", async () => {
+    const visitId = await visitWithSightings();
+    await phoneStore().visits.update(visitId, { ownerId: null });
+    renderScreen(visitId);
+    expect(await screen.findByText(/recorded on this phone before it knew who was signed in/)).toBeInTheDocument();
+    expect(screen.getByRole("link", { name: "Back to my transects" })).toHaveAttribute("href", "/field");
+    expect(screen.queryByText(/Meadow Brown/)).toBeNull();
+    expect(screen.queryByRole("button")).toBeNull();
   });
 });

@@ -6,8 +6,9 @@ import type { ConditionsRules } from "@/lib/field/conditions";
 import type { ChecklistEntry } from "@/lib/field/species-search";
 import { timeNow } from "@/lib/field/clock";
 import { phoneStore, type LocalSighting } from "@/lib/offline/phone-store";
-import { deleteDraftVisit, deleteSighting, returnToDraft, submitVisit } from "@/lib/offline/records";
+import { deleteDraftVisit, deleteSighting, returnToDraft, SOMEONE_ELSES_WALK, submitVisit } from "@/lib/offline/records";
 import { syncNow } from "@/lib/offline/sync-controller";
+import { useFieldUserId } from "../field-providers";
 import { useLive } from "../use-live";
 import { ConfirmButton } from "./confirm-button";
 
@@ -35,13 +36,18 @@ export function RecordingScreen({
   seenByTransect: Record<string, string[]>;
   rules: ConditionsRules;
 }) {
+  const userId = useFieldUserId();
   const data = useLive(async () => {
     const db = phoneStore();
     const visit = await db.visits.get(visitId);
+    // Someone else's walk on a shared phone is not read any further, let alone offered for editing.
+    if (!visit) return { visit: null, owner: "missing" as const };
+    if (visit.ownerId == null) return { visit: null, owner: "unknown" as const };
+    if (userId == null || visit.ownerId !== userId) return { visit: null, owner: "someone-else" as const };
     const sightings = await db.sightings.where("visitId").equals(visitId).toArray();
     const photos = await db.photos.where("visitId").equals(visitId).toArray();
-    return { visit: visit ?? null, sightings: sightings.sort((a, b) => a.updatedAt.localeCompare(b.updatedAt)), photos };
-  }, [visitId]);
+    return { visit, owner: "mine" as const, sightings: sightings.sort((a, b) => a.updatedAt.localeCompare(b.updatedAt)), photos };
+  }, [visitId, userId]);
   const [adding, setAdding] = useState(false);
   const [editing, setEditing] = useState<LocalSighting | null>(null);
   const [editingDetails, setEditingDetails] = useState(false);
@@ -61,9 +67,14 @@ export function RecordingScreen({
     );
   }
   if (!data.visit) {
+    const why = {
+      missing: "This visit is not on this phone.",
+      "someone-else": SOMEONE_ELSES_WALK,
+      unknown: "This walk was recorded on this phone before it knew who was signed in. If it is yours, say so on your home screen first.",
+    }[data.owner];
     return (
       <div className="card space-y-3">
-        <p>This visit is not on this phone.</p>
+        <p>{why}</p>
         <a className="btn-quiet min-w-tap w-full" href="/field">Back to my transects</a>
       </div>
     );
