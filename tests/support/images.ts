@@ -103,13 +103,23 @@ export const phoneMirroredHeic = fixture("phone-mirrored.heic");
 export const HEIC_COLOURS = { red: [220, 30, 30], green: [30, 200, 60], background: [60, 90, 160] } as const;
 
 /**
- * The EXIF block inside a fixture HEIC, as the TIFF structure it is. exifr's HEIF reader ignores
- * the iloc base_offset that libheif 1.15 writes, so it finds no EXIF in the file itself.
+ * A 12-megapixel (4032 × 3024) HEVC HEIC, the size phone cameras write, for timing the decode
+ * (libheif-js takes about 0.4–2 s for it): a gradient with stripes and grain, EXIF with the same
+ * GPS position. Made on Debian 12 (libheif-examples 1.15.1, x265) with
+ * `node tests/fixtures/make-phone-12mp.mjs 12mp.png && heif-enc -q 50 -o tests/fixtures/phone-12mp.heic 12mp.png`
+ * (the same two commands give the same bytes again).
+ */
+export const phone12mpHeic = fixture("phone-12mp.heic");
+
+/**
+ * The EXIF block inside a fixture HEIC, as the TIFF structure it is (big- or little-endian).
+ * exifr's HEIF reader ignores the iloc base_offset that libheif 1.15 writes, so it finds no EXIF
+ * in the file itself.
  */
 export function exifBlockOf(heic: Buffer): Buffer {
-  const start = heic.indexOf(Buffer.from("MM\0*", "latin1"));
-  if (start < 0) throw new Error("no big-endian TIFF header in this HEIC");
-  return heic.subarray(start);
+  const starts = ["MM\0*", "II*\0"].map((header) => heic.indexOf(Buffer.from(header, "latin1"))).filter((at) => at >= 0);
+  if (starts.length === 0) throw new Error("no TIFF header in this HEIC");
+  return heic.subarray(Math.min(...starts));
 }
 
 /**
