@@ -6,10 +6,14 @@ import { belongsTo, phoneStore } from "@/lib/offline/phone-store";
 import type { FieldReference } from "@/lib/offline/reference";
 import { useFieldUserId } from "./field-providers";
 import { OutboxPanel } from "./outbox-panel";
+import { UnownedWalks } from "./unowned-walks";
 import { useLive } from "./use-live";
 import { useFieldReference } from "./use-reference";
 
-/** The volunteer's home: their transects, drafts in progress, the outbox, the safety notice. */
+/**
+ * The volunteer's home: their transects, walks this phone holds without a known owner, drafts in
+ * progress, the outbox, the safety notice.
+ */
 export function FieldHome({ firstName, initial }: { firstName: string; initial?: FieldReference }) {
   const reference = useFieldReference(initial);
   const userId = useFieldUserId();
@@ -65,6 +69,8 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
           })}
         </ul>
       </section>
+
+      <UnownedWalks transects={data?.transects ?? []} />
 
       {local && local.drafts.length > 0 && (
         <section aria-labelledby="drafts-heading" className="card border-tideline-600">

@@ -64,11 +64,6 @@ function toSightingPayload(s: LocalSighting): SightingPayload {
   };
 }
 
-/** Visits recorded before owners were kept go to the first volunteer who syncs on this phone. */
-async function claimUnownedVisits(userId: string): Promise<void> {
-  await phoneStore().visits.filter((v) => v.ownerId == null).modify({ ownerId: userId });
-}
-
 /**
  * This volunteer's submitted visits still to send, each with its sightings still to send. A
  * "sending" item is included: a tab closed mid-request leaves it so, and resending is safe
@@ -120,7 +115,6 @@ async function readSyncAnswer(response: Response): Promise<SyncAnswer> {
  */
 export async function runOutbox(userId: string, fetcher: typeof fetch = fetch): Promise<OutboxRun> {
   const run: OutboxRun = { sent: 0, needsAttention: 0, keptOnServer: 0, offline: false, signedOut: false, retryLater: false };
-  await claimUnownedVisits(userId);
   const batches = planBatches(await pendingGroups(userId), OUTBOX_LIMITS);
   // Visits that needed attention in an earlier batch: their later sightings wait with them.
   const held = new Set<string>();

@@ -17,6 +17,8 @@ export type LocalVisit = {
    * recorded before owners were kept. The server checks every item again.
    */
   ownerId?: string | null;
+  /** On a visit without an owner: the volunteers who said it is not theirs (lib/offline/unowned-walks.ts). */
+  leftBy?: string[];
   transectId: string;
   visitDate: string;
   startTime: string;
@@ -88,9 +90,12 @@ export function isWaiting(state: OutboxState): boolean {
   return state === "on-phone" || state === "sending";
 }
 
-/** A visit shown to and sent for this volunteer: theirs, or one recorded before owners were kept. */
+/**
+ * A visit shown to, edited by and sent for this volunteer: theirs alone. A visit recorded before
+ * owners were kept is nobody's until a volunteer says it is theirs (./unowned-walks.ts).
+ */
 export function belongsTo(visit: Pick<LocalVisit, "ownerId">, userId: string | null): boolean {
-  return visit.ownerId == null || visit.ownerId === userId;
+  return userId != null && visit.ownerId === userId;
 }
 
 export class PhoneStore extends Dexie {
@@ -109,7 +114,8 @@ export class PhoneStore extends Dexie {
       reference: "key",
       meta: "key",
     });
-    // Version 2: visits have an owner. Older visits get an explicit empty owner, to be claimed.
+    // Version 2: visits have an owner. Older visits get an explicit empty owner: the volunteer
+    // who recorded them says so on the field home (./unowned-walks.ts).
     this.version(2)
       .stores({ visits: "id, transectId, phase, outbox, visitDate, ownerId" })
       .upgrade((tx) =>

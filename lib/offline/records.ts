@@ -1,4 +1,4 @@
-import { fieldUser, phoneStore, type LocalPhoto, type LocalSighting, type LocalVisit } from "./phone-store";
+import { belongsTo, fieldUser, phoneStore, type LocalPhoto, type LocalSighting, type LocalVisit } from "./phone-store";
 
 // Local edits. Everything here works with no signal; the outbox sends submitted visits later.
 // On a phone shared by several volunteers each walk is its owner's alone: every write checks
@@ -18,8 +18,7 @@ function signedIn(): string {
 export async function ownWalk(visitId: string): Promise<LocalVisit> {
   const visit = await phoneStore().visits.get(visitId);
   if (!visit) throw new Error("That visit is not on this phone.");
-  const userId = fieldUser();
-  if (userId == null || visit.ownerId !== userId) throw new Error(SOMEONE_ELSES_WALK);
+  if (!belongsTo(visit, fieldUser())) throw new Error(SOMEONE_ELSES_WALK);
   return visit;
 }
 

@@ -4,6 +4,7 @@ import { beforeEach, describe, expect, it } from "vitest";
 import { PhoneStore, phoneStore, setPhoneStore, setFieldUser } from "@/lib/offline/phone-store";
 import { runOutbox, unsentOnPhone } from "@/lib/offline/outbox";
 import { addPhoto, addSighting, createVisit, submitVisit } from "@/lib/offline/records";
+import { claimWalks } from "@/lib/offline/unowned-walks";
 import { fakeServer } from "./fake-sync-server";
 
 const alice = "3d5e7f90-1a2b-4c3d-8e4f-5a6b7c8d9e0f";
@@ -50,7 +51,7 @@ describe("a phone shared by several volunteers", () => {
     expect(server.sightings.size).toBe(5);
   });
 
-  it("upgrades an older store: visits without an owner go to the first volunteer who syncs", async () => {
+  it("upgrades an older store: a visit without an owner is sent for nobody until a volunteer says it is theirs", async () => {
     const name = `test-${crypto.randomUUID()}`;
     // The store as version 1 of the phone code left it.
     const old = new Dexie(name);
@@ -61,6 +62,10 @@ describe("a phone shared by several volunteers", () => {
       sky: "clear", coRecorders: null, completeList: true, notes: null, phase: "submitted", submittedAt: "2026-05-02T10:00:00.000Z",
       updatedAt: "2026-05-02T10:00:00.000Z", outbox: "on-phone", attention: null, attempts: 0,
     });
+    await old.table("sightings").add({
+      id: "6c5d4e3f-2a1b-4c0d-9e8f-7a6b5c4d3e2f", visitId: legacyId, speciesId, count: 2, section: 1, latitude: null, longitude: null,
+      accuracyMetres: null, note: null, updatedAt: "2026-05-02T09:30:00.000Z", outbox: "on-phone", attention: null,
+    });
     old.close();
 
     const db = new PhoneStore(name);
@@ -68,19 +73,23 @@ describe("a phone shared by several volunteers", () => {
     await db.open();
     expect(db.verno).toBe(2);
     expect((await db.visits.get(legacyId))?.ownerId).toBeNull();
-    // Counted for whoever is signed in until someone syncs...
-    expect((await unsentOnPhone(bruno)).visits).toBe(1);
-
+    // Nobody's: not counted as anyone's unsent work, and not sent by whoever syncs first.
+    expect(await unsentOnPhone(alice)).toEqual({ visits: 0, sightings: 0, photos: 0 });
     const server = fakeServer();
     await runOutbox(alice, server.fetcher);
+    await runOutbox(bruno, server.fetcher);
+    expect(server.bodies).toEqual([]);
+    expect(await db.visits.get(legacyId)).toMatchObject({ ownerId: null, outbox: "on-phone" });
+
+    // Once Alice says it is hers, it is sent with her records, and it is no one else's.
+    expect(await claimWalks(alice, [legacyId])).toBe(1);
+    expect((await unsentOnPhone(alice)).visits).toBe(1);
+    await runOutbox(alice, server.fetcher);
     expect(server.visits.has(legacyId)).toBe(true);
+    expect(server.sightings.size).toBe(1);
     expect((await db.visits.get(legacyId))?.ownerId).toBe(alice);
-    // ...then it is Alice's, and no longer anyone else's.
-    await db.visits.update(legacyId, { outbox: "on-phone" });
-    expect((await unsentOnPhone(bruno)).visits).toBe(0);
-    const brunoServer = fakeServer();
-    await runOutbox(bruno, brunoServer.fetcher);
-    expect(brunoServer.bodies).toEqual([]);
+    expect(await claimWalks(bruno, [legacyId])).toBe(0);
+    expect((await db.visits.get(legacyId))?.ownerId).toBe(alice);
   });
 
   it("counts what the signed-in volunteer has not sent, drafts included, and nobody else's", async () => {

@@ -4,6 +4,7 @@ import { PhoneStore, phoneStore, setPhoneStore, setFieldUser } from "@/lib/offli
 import { runOutbox } from "@/lib/offline/outbox";
 import { hasWorkToSend } from "@/lib/offline/pending-work";
 import { addPhoto, addSighting, createVisit, submitVisit } from "@/lib/offline/records";
+import { claimWalks, leaveWalks } from "@/lib/offline/unowned-walks";
 import { fakeServer } from "./fake-sync-server";
 
 // hasWorkToSend decides whether the sending code is loaded at all, so it must never say "no"
@@ -58,11 +59,22 @@ describe("whether the outbox has anything to send", () => {
     expect(await claimAndTruth(alice)).toEqual({ said: true, sent: true });
   });
 
-  it("says no for someone else's visits, and yes for visits recorded before owners were kept", async () => {
-    await visitBy(bruno);
+  it("says no for someone else's visits and photos", async () => {
+    const theirs = await visitBy(bruno, { photo: true });
+    // Bruno's visit went, but his photo is still waiting on the phone.
+    const store = phoneStore();
+    await store.visits.update(theirs, { outbox: "sent" });
+    await store.sightings.where("visitId").equals(theirs).modify({ outbox: "sent" });
     expect(await claimAndTruth(alice)).toEqual({ said: false, sent: false });
-    const legacy = await visitBy(bruno);
-    await phoneStore().visits.update(legacy, { ownerId: undefined });
-    expect((await claimAndTruth(alice)).said).toBe(true);
+  });
+
+  it("says no for a visit whose owner the phone does not know, until the volunteer says it is theirs", async () => {
+    const legacy = await visitBy(bruno, { photo: true });
+    await phoneStore().visits.update(legacy, { ownerId: null });
+    expect(await claimAndTruth(alice)).toEqual({ said: false, sent: false });
+    await leaveWalks(alice, [legacy]);
+    expect(await claimAndTruth(alice)).toEqual({ said: false, sent: false });
+    await claimWalks(alice, [legacy]);
+    expect(await claimAndTruth(alice)).toEqual({ said: true, sent: true });
   });
 });

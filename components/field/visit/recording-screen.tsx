@@ -5,7 +5,7 @@ import { beaufortScale } from "@/lib/field/beaufort";
 import type { ConditionsRules } from "@/lib/field/conditions";
 import type { ChecklistEntry } from "@/lib/field/species-search";
 import { timeNow } from "@/lib/field/clock";
-import { phoneStore, type LocalSighting } from "@/lib/offline/phone-store";
+import { belongsTo, phoneStore, type LocalSighting } from "@/lib/offline/phone-store";
 import { deleteDraftVisit, deleteSighting, returnToDraft, SOMEONE_ELSES_WALK, submitVisit } from "@/lib/offline/records";
 import { syncNow } from "@/lib/offline/sync-controller";
 import { useFieldUserId } from "../field-providers";
@@ -43,7 +43,7 @@ export function RecordingScreen({
     // Someone else's walk on a shared phone is not read any further, let alone offered for editing.
     if (!visit) return { visit: null, owner: "missing" as const };
     if (visit.ownerId == null) return { visit: null, owner: "unknown" as const };
-    if (userId == null || visit.ownerId !== userId) return { visit: null, owner: "someone-else" as const };
+    if (!belongsTo(visit, userId)) return { visit: null, owner: "someone-else" as const };
     const sightings = await db.sightings.where("visitId").equals(visitId).toArray();
     const photos = await db.photos.where("visitId").equals(visitId).toArray();
     return { visit, owner: "mine" as const, sightings: sightings.sort((a, b) => a.updatedAt.localeCompare(b.updatedAt)), photos };
