@@ -1,13 +1,19 @@
 import { sql } from "drizzle-orm";
-import { boolean, check, date, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, date, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { users } from "./people";
 
-export const habitatGroups = pgTable("habitat_groups", {
-  id: uuid("id").primaryKey().defaultRandom(),
-  code: text("code").notNull().unique(),
-  name: text("name").notNull(),
-  description: text("description"),
-});
+export const habitatGroups = pgTable(
+  "habitat_groups",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    code: text("code").notNull().unique(),
+    name: text("name").notNull(),
+    description: text("description"),
+    // A key of lib/geo/palette.ts (our own accessible colours), not a free hex.
+    colour: text("colour").notNull().default("slate"),
+  },
+  (t) => [uniqueIndex("habitat_groups_name_lower_idx").on(sql`lower(${t.name})`), check("habitat_groups_colour_key", sql`${t.colour} ~ '^[a-z]{1,32}$'`)],
+);
 
 /** A GeoJSON LineString in WGS84 (RFC 7946): [longitude, latitude] pairs. */
 export type LineString = { type: "LineString"; coordinates: [number, number][] };
@@ -25,7 +31,11 @@ export const transects = pgTable(
     // Shown to volunteers: access notes, tide times for coastal routes, hazards.
     accessNotes: text("access_notes"),
     coastal: boolean("coastal").notNull().default(false),
+    // The exact route leaves the server only for reviewers, organisers and assigned volunteers.
+    sensitive: boolean("sensitive").notNull().default(false),
+    // false once retired: nobody records on it, its history and past seasons stay.
     active: boolean("active").notNull().default(true),
+    retiredAt: timestamp("retired_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
@@ -34,6 +44,53 @@ export const transects = pgTable(
     check("transects_sections_positive", sql`${t.sectionCount} between 1 and 50`),
     check("transects_length_positive", sql`${t.lengthMetres} > 0`),
     check("transects_route_linestring", sql`${t.route}->>'type' = 'LineString' and jsonb_array_length(${t.route}->'coordinates') >= 2`),
+  ],
+);
+
+/**
+ * Every route a transect has had. transects.route, section_count and length_metres repeat the
+ * latest version. A walk is measured against the version in force on its date (the latest
+ * valid_from on or before it; the first version also covers earlier dates: lib/geo/versions.ts).
+ */
+export const transectRouteVersions = pgTable(
+  "transect_route_versions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    transectId: uuid("transect_id").notNull().references(() => transects.id, { onDelete: "cascade" }),
+    version: integer("version").notNull(),
+    validFrom: date("valid_from").notNull(),
+    route: jsonb("route").$type<LineString>().notNull(),
+    sectionCount: integer("section_count").notNull(),
+    lengthMetres: integer("length_metres").notNull(),
+    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("transect_route_versions_number_idx").on(t.transectId, t.version),
+    uniqueIndex("transect_route_versions_from_idx").on(t.transectId, t.validFrom),
+    check("transect_route_versions_number_positive", sql`${t.version} >= 1`),
+    check("transect_route_versions_sections", sql`${t.sectionCount} between 1 and 50`),
+    check("transect_route_versions_length_positive", sql`${t.lengthMetres} > 0`),
+    check("transect_route_versions_linestring", sql`${t.route}->>'type' = 'LineString' and jsonb_array_length(${t.route}->'coordinates') >= 2`),
+  ],
+);
+
+/** A version's sections: each its own stretch of the version's route, points from_point to to_point. */
+export const transectSections = pgTable(
+  "transect_sections",
+  {
+    versionId: uuid("version_id").notNull().references(() => transectRouteVersions.id, { onDelete: "cascade" }),
+    number: integer("number").notNull(),
+    fromPoint: integer("from_point").notNull(),
+    toPoint: integer("to_point").notNull(),
+    lengthMetres: integer("length_metres").notNull(),
+    habitat: text("habitat"),
+  },
+  (t) => [
+    primaryKey({ columns: [t.versionId, t.number] }),
+    check("transect_sections_number", sql`${t.number} between 1 and 50`),
+    check("transect_sections_points", sql`${t.fromPoint} >= 0 and ${t.toPoint} > ${t.fromPoint}`),
+    check("transect_sections_length", sql`${t.lengthMetres} >= 0`),
   ],
 );
 
