@@ -6,12 +6,16 @@ import { authConfig } from "./auth.config";
 import { db } from "@/db/client";
 import { users } from "@/db/schema";
 import { decoyHash, verifyPassword } from "@/lib/auth/password";
-import { isSignInBlocked, recordSignInAttempt } from "@/lib/auth/rate-limit";
+import { finishSignInAttempt, startSignInAttempt } from "@/lib/auth/rate-limit";
 import { env } from "@/lib/env";
 import { clientAddress } from "@/lib/http/client-address";
 
-class TooManyAttempts extends CredentialsSignin {
+/** Thrown by authorize when the sign-in limit says wait; the sign-in action shows how long. */
+export class TooManyAttempts extends CredentialsSignin {
   code = "too_many_attempts";
+  constructor(readonly retryAfterMs: number) {
+    super();
+  }
 }
 
 const credentialsSchema = z.object({
@@ -29,8 +33,8 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) return null;
         const { email, password } = parsed.data;
-        const ip = clientAddress(request.headers);
-        if (await isSignInBlocked(email, ip)) throw new TooManyAttempts();
+        const attempt = await startSignInAttempt(email, clientAddress(request.headers));
+        if (!attempt.allowed) throw new TooManyAttempts(attempt.retryAfterMs);
 
         const [user] = await db()
           .select()
@@ -40,7 +44,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         // Always run one bcrypt comparison so an unknown e-mail takes as long as a wrong password.
         const ok = await verifyPassword(password, user?.passwordHash ?? decoyHash);
         const accepted = Boolean(user && user.active && user.passwordHash && ok);
-        await recordSignInAttempt(email, ip, accepted);
+        await finishSignInAttempt(attempt.attemptId, accepted);
         if (!accepted || !user) return null;
 
         await db().update(users).set({ lastSignInAt: new Date() }).where(eq(users.id, user.id));

@@ -3,9 +3,10 @@
 import { eq, sql } from "drizzle-orm";
 import { AuthError } from "next-auth";
 import { redirect } from "next/navigation";
-import { signIn } from "@/auth";
+import { TooManyAttempts, signIn } from "@/auth";
 import { db } from "@/db/client";
 import { users } from "@/db/schema";
+import { waitInWords } from "@/lib/auth/rate-limit";
 import { safeReturnPath } from "@/lib/auth/return-path";
 import { roleHome } from "@/lib/auth/roles";
 import { env } from "@/lib/env";
@@ -21,11 +22,10 @@ export async function signInAction(input: unknown): Promise<SignInResult> {
   try {
     await signIn("credentials", { email: parsed.data.email, password: parsed.data.password, redirect: false });
   } catch (error) {
+    if (error instanceof TooManyAttempts) {
+      return { ok: false, message: `Too many sign-in attempts. Try again in ${waitInWords(error.retryAfterMs)}.` };
+    }
     if (error instanceof AuthError) {
-      const code = "code" in error ? String((error as { code?: unknown }).code) : "";
-      if (code === "too_many_attempts") {
-        return { ok: false, message: "Too many sign-in attempts. Please wait 15 minutes and try again." };
-      }
       // The same words whether the e-mail is unknown or the password is wrong.
       return { ok: false, message: "That e-mail and password do not match an active account." };
     }
