@@ -81,6 +81,28 @@ export async function seedDemo(database: Database, passwordHash: string): Promis
         accessNotes: d.accessNotes,
       })),
     );
+    // One route version per transect, in force from the first season on; section n is the
+    // stretch between route points n − 1 and n.
+    const versionRows = await tx
+      .insert(t.transectRouteVersions)
+      .values(
+        transectDefs.map((d) => ({
+          transectId: d.id,
+          version: 1,
+          validFrom: seasonsDef[0]!.startsOn,
+          route: d.route,
+          sectionCount: d.sectionCount,
+          lengthMetres: d.lengthMetres,
+          createdById: organiserId,
+        })),
+      )
+      .returning({ id: t.transectRouteVersions.id, transectId: t.transectRouteVersions.transectId });
+    const versionOf = new Map(versionRows.map((v) => [v.transectId, v.id]));
+    await tx.insert(t.transectSections).values(
+      transectDefs.flatMap((d) =>
+        d.sectionLengths.map((lengthMetres, s) => ({ versionId: versionOf.get(d.id)!, number: s + 1, fromPoint: s, toPoint: s + 1, lengthMetres })),
+      ),
+    );
     // Two transects per volunteer; the organiser assigns them.
     await tx.insert(t.transectAssignments).values(
       transectDefs.map((d, i) => ({ transectId: d.id, userId: volunteerIds[Math.floor(i / 2) % volunteerIds.length]!, assignedById: organiserId })),

@@ -1,6 +1,8 @@
 // The demo scenario, invented for Turnstone: the Harrowmere Valley, a chalk valley running
 // down to a small estuary, walked by twelve volunteers. In winter 2025/26 conservation grazing
 // returned to the chalk downs; the same summer the valley-bottom wetlands dried and scrubbed over.
+import { lengthMetres } from "../../lib/geo/length";
+import type { HabitatColour } from "../../lib/geo/palette";
 import type { LineString } from "../schema/sites";
 
 export const demoNetwork = {
@@ -27,11 +29,11 @@ export const demoPeople = {
 };
 
 export const demoHabitats = [
-  { code: "CHK", name: "Chalk downland", description: "South-facing chalk grassland; conservation grazing returned in winter 2025/26." },
-  { code: "WDR", name: "Woodland rides", description: "Broad rides and glades in the valley's oak and hazel woods." },
-  { code: "DUN", name: "Coastal dunes", description: "Fixed dunes and dune slacks at the river mouth." },
-  { code: "WET", name: "Wetland margins", description: "Wet meadows and ditch margins on the valley floor; dried out and scrubbed over in 2026." },
-] as const;
+  { code: "CHK", name: "Chalk downland", colour: "downland", description: "South-facing chalk grassland; conservation grazing returned in winter 2025/26." },
+  { code: "WDR", name: "Woodland rides", colour: "oak", description: "Broad rides and glades in the valley's oak and hazel woods." },
+  { code: "DUN", name: "Coastal dunes", colour: "gorse", description: "Fixed dunes and dune slacks at the river mouth." },
+  { code: "WET", name: "Wetland margins", colour: "estuary", description: "Wet meadows and ditch margins on the valley floor; dried out and scrubbed over in 2026." },
+] as const satisfies readonly { code: string; name: string; colour: HabitatColour; description: string }[];
 
 export type HabitatCode = (typeof demoHabitats)[number]["code"];
 
@@ -49,7 +51,7 @@ const anchors: Record<HabitatCode, [number, number]> = {
   WET: [-1.318, 51.041],
 };
 
-/** Route points walk roughly north-east from the habitat's anchor, one point per section boundary. */
+/** Route points walk roughly north-east from the habitat's anchor, one point per section boundary: section n runs from point n − 1 to point n. */
 export function demoTransects(rand: () => number) {
   return demoHabitats.flatMap((h) =>
     placeNames[h.code].map((name, i) => {
@@ -70,7 +72,8 @@ export function demoTransects(rand: () => number) {
         habitat: h.code,
         sectionCount: sections,
         route,
-        lengthMetres: Math.round(lineLengthMetres(coordinates)),
+        lengthMetres: Math.round(lengthMetres(coordinates)),
+        sectionLengths: coordinates.slice(1).map((p, s) => Math.round(lengthMetres([coordinates[s]!, p]))),
         coastal: h.code === "DUN",
         accessNotes:
           h.code === "DUN"
@@ -85,19 +88,4 @@ export function demoTransects(rand: () => number) {
 
 function round6(x: number) {
   return Math.round(x * 1e6) / 1e6;
-}
-
-/** Haversine distance along the line (mean Earth radius 6,371 km). */
-export function lineLengthMetres(coords: [number, number][]): number {
-  let total = 0;
-  for (let i = 1; i < coords.length; i++) {
-    const [lon1, lat1] = coords[i - 1]!;
-    const [lon2, lat2] = coords[i]!;
-    const toRad = Math.PI / 180;
-    const dLat = (lat2 - lat1) * toRad;
-    const dLon = (lon2 - lon1) * toRad;
-    const a = Math.sin(dLat / 2) ** 2 + Math.cos(lat1 * toRad) * Math.cos(lat2 * toRad) * Math.sin(dLon / 2) ** 2;
-    total += 2 * 6_371_000 * Math.asin(Math.sqrt(a));
-  }
-  return total;
 }
