@@ -2,11 +2,11 @@ import { spawn, type ChildProcess } from "node:child_process";
 import { once } from "node:events";
 import net from "node:net";
 import path from "node:path";
-import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, afterEach, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { emailOutbox } from "@/db/schema";
-import { resetToDemo } from "./support/db";
+import "./support/db";
 
 // A worker asked to stop (SIGTERM from `npm run stop`, a service manager or a container runtime;
 // SIGINT from Ctrl+C) must go within a few seconds whatever it is doing, and hand back the mail it
@@ -112,9 +112,6 @@ describe("the worker stops on a signal in any state", () => {
   }, 40_000);
 
   describe("with a live database", () => {
-    beforeAll(async () => {
-      await resetToDemo();
-    });
     afterAll(async () => {
       await db().delete(emailOutbox);
     });
