@@ -1,30 +1,58 @@
 import "server-only";
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { photos } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { AppError, forbidden, notFound } from "@/lib/errors";
 import { MAX_PHOTO_BYTES, photoErrorCodes, type PhotoReady } from "./contract";
-import { inspectPhoto } from "./inspect";
 import { photoKeys } from "./keys";
 import { deleteObject, objectSize, readObject, writeObject } from "./objects";
-import { processPhoto } from "./process";
-import { PhotoRefusal, isPhotoRefusal, megabytes } from "./refusal";
+import type { Judgement } from "./pool-task";
+import { reservePhotoSlot } from "./pool";
+import { PhotoRefusal, megabytes } from "./refusal";
 
 export const PHOTO_NOT_UPLOADED = photoErrorCodes.notUploaded;
 
-type Outcome =
-  | { kind: "ready"; width: number; height: number; originalKey?: string }
-  | { kind: "refused"; reason: string; originalKey?: string };
+type PhotoRow = typeof photos.$inferSelect;
+/** A judgement with the size to record: the file's own, or the stored object's when it was too big to read. */
+type Verdict = Extract<Judgement, { kind: "ready" }> | { kind: "refused"; reason: string; bytes: number };
 
-async function readUpload(key: string, size: number): Promise<Uint8Array> {
+// Not a 409: the phone's outbox reads 409 as "the server has it" and would drop its copy.
+const notUploaded = () => new AppError(400, PHOTO_NOT_UPLOADED, "The photo has not been uploaded yet: send the file to the upload URL first.");
+
+async function photoRow(id: string): Promise<PhotoRow | undefined> {
+  const [row] = await db().select().from(photos).where(eq(photos.id, id));
+  return row;
+}
+
+/** The answer a settled photo gives every time it is asked: ready, or its refusal. */
+function answerOf(row: PhotoRow): PhotoReady {
+  if (row.status === "ready") return { photo: { id: row.id, status: "ready", width: row.width ?? 0, height: row.height ?? 0 } };
+  if (row.status === "refused") throw new PhotoRefusal(row.refusalReason ?? "This photo was refused.");
+  throw notUploaded();
+}
+
+/**
+ * Reads the upload and has the pool judge it, or null when nothing is stored. A slot is taken
+ * before reading, so a flood of completions answers 503 busy instead of holding 15 MB each.
+ */
+async function judgeUpload(key: string): Promise<Verdict | null> {
+  const size = await objectSize(key);
+  if (size === null) return null;
   if (size > MAX_PHOTO_BYTES) {
-    throw new PhotoRefusal(`Photos can be at most ${megabytes(MAX_PHOTO_BYTES)}; this file is ${megabytes(size)}.`);
+    return { kind: "refused", reason: `Photos can be at most ${megabytes(MAX_PHOTO_BYTES)}; this file is ${megabytes(size)}.`, bytes: size };
   }
-  const bytes = await readObject(key, MAX_PHOTO_BYTES);
-  // Replaced by a bigger object since the size check (the upload URL may still be valid).
-  if (bytes.byteLength > MAX_PHOTO_BYTES) throw new PhotoRefusal(`Photos can be at most ${megabytes(MAX_PHOTO_BYTES)}.`);
-  return bytes;
+  const slot = reservePhotoSlot();
+  try {
+    const bytes = await readObject(key, MAX_PHOTO_BYTES);
+    if (bytes === null) return null;
+    // Replaced by a bigger object since the size check (the upload URL may still be valid).
+    if (bytes.byteLength > MAX_PHOTO_BYTES) return { kind: "refused", reason: `Photos can be at most ${megabytes(MAX_PHOTO_BYTES)}.`, bytes: size };
+    const judged = await slot.judge(bytes);
+    return judged.kind === "ready" ? judged : { ...judged, bytes: size };
+  } finally {
+    slot.release();
+  }
 }
 
 /** The original is deleted once judged: it still carries the phone's EXIF, GPS included. */
@@ -37,61 +65,68 @@ async function discardOriginal(key: string): Promise<void> {
 }
 
 /**
- * Step 3 of the upload flow: checks the uploaded bytes, writes the display and thumbnail
- * images and marks the photo ready, or records why it was refused. The row is locked for the
- * whole step, so a repeated call waits and then gets the same answer; a crash rolls back to
- * awaiting_upload with the original still in place, so the phone can simply call again.
+ * Records the verdict unless another completion of the same photo got there first, and answers
+ * with whatever the row then says. The renditions are written before the row points at them; the
+ * one UPDATE that settles the row locks it only for that statement, and a completion that finds
+ * it settled already (PostgreSQL rechecks the WHERE after waiting for the other) writes nothing.
+ */
+async function settle(row: PhotoRow, verdict: Verdict): Promise<PhotoRow> {
+  const now = new Date();
+  let change: Partial<PhotoRow>;
+  if (verdict.kind === "ready") {
+    // Another completion may have settled it while this one worked: leave its images alone.
+    const current = await photoRow(row.id);
+    if (current?.status !== "awaiting_upload") return current ?? row;
+    const keys = photoKeys(row.visitId, row.id);
+    await Promise.all([
+      writeObject(keys.display, verdict.display.bytes, verdict.display.contentType),
+      writeObject(keys.thumbnail, verdict.thumbnail.bytes, verdict.thumbnail.contentType),
+    ]);
+    // width and height are those of the display image: the original is not kept.
+    change = {
+      status: "ready",
+      displayKey: keys.display,
+      thumbnailKey: keys.thumbnail,
+      contentType: verdict.contentType,
+      bytes: verdict.bytes,
+      width: verdict.display.width,
+      height: verdict.display.height,
+      refusalReason: null,
+      processedAt: now,
+    };
+  } else {
+    change = { status: "refused", refusalReason: verdict.reason, bytes: verdict.bytes, processedAt: now };
+  }
+  const [won] = await db()
+    .update(photos)
+    .set(change)
+    .where(and(eq(photos.id, row.id), eq(photos.status, "awaiting_upload")))
+    .returning();
+  if (!won) return (await photoRow(row.id)) ?? row;
+  // Only after the row is settled: until then the original stays for a retry.
+  await discardOriginal(row.uploadKey);
+  return won;
+}
+
+/**
+ * Step 3 of the upload flow: checks the uploaded bytes, writes the display and thumbnail images
+ * and marks the photo ready, or records why it was refused. The work happens outside any
+ * transaction, on the photo pool's threads (pool.ts); only the final write touches the row.
+ * Completions of one photo that overlap get the same answer, and a crash before the final write
+ * leaves the photo awaiting_upload with its original in place, so the phone simply calls again.
  */
 export async function completeUpload(actor: Actor, photoId: string): Promise<PhotoReady> {
-  const outcome = await db().transaction(async (tx): Promise<Outcome> => {
-    const [row] = await tx.select().from(photos).where(eq(photos.id, photoId)).for("update");
-    if (!row) throw notFound("That photo");
-    if (row.uploadedById !== actor.id) throw forbidden("You can only complete your own uploads.");
-    if (row.status === "ready") return { kind: "ready", width: row.width ?? 0, height: row.height ?? 0 };
-    if (row.status === "refused") return { kind: "refused", reason: row.refusalReason ?? "This photo was refused." };
+  const row = await photoRow(photoId);
+  if (!row) throw notFound("That photo");
+  if (row.uploadedById !== actor.id) throw forbidden("You can only complete your own uploads.");
+  if (row.status !== "awaiting_upload") return answerOf(row);
 
-    const size = await objectSize(row.uploadKey);
-    if (size === null) {
-      // Not a 409: the phone's outbox reads 409 as "the server has it" and would drop its copy.
-      throw new AppError(400, PHOTO_NOT_UPLOADED, "The photo has not been uploaded yet: send the file to the upload URL first.");
-    }
-    try {
-      const bytes = await readUpload(row.uploadKey, size);
-      const inspected = await inspectPhoto(bytes);
-      const { display, thumbnail } = await processPhoto(bytes, inspected);
-      const keys = photoKeys(row.visitId, row.id);
-      await Promise.all([
-        writeObject(keys.display, display.bytes, display.contentType),
-        writeObject(keys.thumbnail, thumbnail.bytes, thumbnail.contentType),
-      ]);
-      // width and height are those of the display image: the original is not kept.
-      await tx
-        .update(photos)
-        .set({
-          status: "ready",
-          displayKey: keys.display,
-          thumbnailKey: keys.thumbnail,
-          contentType: inspected.contentType,
-          bytes: inspected.bytes,
-          width: display.width,
-          height: display.height,
-          refusalReason: null,
-          processedAt: new Date(),
-        })
-        .where(eq(photos.id, row.id));
-      return { kind: "ready", width: display.width, height: display.height, originalKey: row.uploadKey };
-    } catch (error) {
-      if (!isPhotoRefusal(error)) throw error;
-      await tx
-        .update(photos)
-        .set({ status: "refused", refusalReason: error.message, bytes: size, processedAt: new Date() })
-        .where(eq(photos.id, row.id));
-      return { kind: "refused", reason: error.message, originalKey: row.uploadKey };
-    }
-  });
-
-  // Only after the commit: a rolled-back attempt keeps its original for the retry.
-  if (outcome.originalKey) await discardOriginal(outcome.originalKey);
-  if (outcome.kind === "refused") throw new PhotoRefusal(outcome.reason);
-  return { photo: { id: photoId, status: "ready", width: outcome.width, height: outcome.height } };
+  const verdict = await judgeUpload(row.uploadKey);
+  if (verdict === null) {
+    // No original: not uploaded yet, or another completion settled the photo and deleted it.
+    const now = await photoRow(photoId);
+    if (!now) throw notFound("That photo");
+    return answerOf(now);
+  }
+  return answerOf(await settle(row, verdict));
 }

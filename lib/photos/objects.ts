@@ -44,11 +44,19 @@ export async function objectSize(key: string): Promise<number | null> {
   }
 }
 
-/** Reads at most `limit + 1` bytes, so an object swapped for a bigger one after a size check cannot flood memory. */
-export async function readObject(key: string, limit: number): Promise<Uint8Array> {
-  const object = await s3().send(new GetObjectCommand({ Bucket: photoBucket(), Key: key, Range: `bytes=0-${limit}` }));
-  if (!object.Body) return new Uint8Array();
-  return object.Body.transformToByteArray();
+/**
+ * Reads at most `limit + 1` bytes, so an object swapped for a bigger one after a size check cannot
+ * flood memory; null when nothing is stored under that key (any more).
+ */
+export async function readObject(key: string, limit: number): Promise<Uint8Array | null> {
+  try {
+    const object = await s3().send(new GetObjectCommand({ Bucket: photoBucket(), Key: key, Range: `bytes=0-${limit}` }));
+    if (!object.Body) return new Uint8Array();
+    return await object.Body.transformToByteArray();
+  } catch (error) {
+    if (isMissing(error)) return null;
+    throw error;
+  }
 }
 
 export async function writeObject(key: string, bytes: Uint8Array, contentType: string): Promise<void> {

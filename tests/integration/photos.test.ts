@@ -140,7 +140,7 @@ describe("field photos against the real database and S3 fake", () => {
     expect(again.id).toBe(id);
     expect((await db().select().from(photos).where(eq(photos.id, id))).map((p) => [p.status, p.sightingId])).toEqual([["awaiting_upload", null]]);
 
-    // Two completions at once (a phone retrying on a flaky signal): the row lock makes them agree.
+    // Two completions at once (a phone retrying on a flaky signal): the conditional final write makes them agree.
     const [first, second] = await Promise.all([completeUpload(volunteer, id), completeUpload(volunteer, id)]);
     expect(second).toEqual(first);
     await expect(completeUpload(volunteer, id)).resolves.toEqual(first);
