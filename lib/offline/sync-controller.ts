@@ -1,5 +1,6 @@
 import type { OutboxRun } from "./outbox";
 import { hasWorkToSend } from "./pending-work";
+import { sendSafetyAcceptance } from "./safety";
 
 // Runs the outbox when the app starts, when the phone comes back online, when the app returns
 // to the foreground, and after failures with exponential backoff (5 s doubling to 5 min).
@@ -123,13 +124,19 @@ export function createSyncController(runPass: (userId: string) => Promise<Outbox
 
 const nothingSent: OutboxRun = { sent: 0, needsAttention: 0, keptOnServer: 0, offline: false, signedOut: false, retryLater: false };
 
-// The sending code loads only when there is something to send (the service worker has it
-// precached for offline use); a failed load counts as a failed pass and is retried with backoff.
-const controller = createSyncController(async (userId) => {
-  if (!(await hasWorkToSend(userId))) return nothingSent;
-  const { runOutbox } = await import("./outbox");
-  return runOutbox(userId);
-});
+/**
+ * One pass for the signed-in volunteer: their safety acknowledgement if it waits on the phone,
+ * then their records. The records' sending code loads only when there is something to send (the
+ * service worker has it precached for offline use); a failed load counts as a failed pass and is
+ * retried with backoff.
+ */
+export async function fieldPass(userId: string, fetcher: typeof fetch = fetch): Promise<OutboxRun> {
+  const safety = await sendSafetyAcceptance(userId, fetcher);
+  const run = (await hasWorkToSend(userId)) ? await (await import("./outbox")).runOutbox(userId, fetcher) : nothingSent;
+  return safety === "retry" ? { ...run, retryLater: true } : run;
+}
+
+const controller = createSyncController((userId) => fieldPass(userId));
 
 export const startSyncController = controller.start;
 export const syncNow = controller.syncNow;

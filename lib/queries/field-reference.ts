@@ -5,14 +5,15 @@ import { sightings, species, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { assignedTransects } from "./field";
 import { networkSettingsRow } from "./network";
+import { safetyAcceptedAt } from "./safety";
 
 /**
  * Everything the field screens need to work with no signal, in one answer the phone caches:
- * the volunteer's transects, the checklist, what was seen on each transect before, and the
- * network's conditions rules.
+ * the volunteer's transects, the checklist, what was seen on each transect before, the
+ * network's conditions rules, and whether this volunteer has acknowledged the safety notice.
  */
 export async function fieldReference(actor: Actor) {
-  const [{ season, transects }, checklist, settings] = await Promise.all([
+  const [{ season, transects }, checklist, settings, acceptedAt] = await Promise.all([
     assignedTransects(actor),
     db()
       .select({
@@ -26,6 +27,7 @@ export async function fieldReference(actor: Actor) {
       .from(species)
       .orderBy(asc(species.sortOrder), asc(species.vernacularName)),
     networkSettingsRow(),
+    safetyAcceptedAt(actor),
   ]);
   const ids = transects.map((t) => t.id);
   const seen = ids.length
@@ -49,6 +51,8 @@ export async function fieldReference(actor: Actor) {
       earliestStartTime: settings?.earliestStartTime ?? null,
       latestStartTime: settings?.latestStartTime ?? null,
     },
+    /** When this volunteer acknowledged the safety notice (the field screens ask until they have). */
+    safetyAcceptedAt: acceptedAt?.toISOString() ?? null,
     savedAt: new Date().toISOString(),
   };
 }

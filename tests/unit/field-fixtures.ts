@@ -31,6 +31,7 @@ export function fieldReference(): FieldReference {
     ],
     seenByTransect: {},
     rules: { minTemperatureC: null, maxWindBeaufort: null, earliestStartTime: null, latestStartTime: null },
+    safetyAcceptedAt: null,
     savedAt: "2026-07-01T08:00:00.000Z",
   } as unknown as FieldReference;
 }

@@ -28,7 +28,7 @@ export function VisitScreen({ initial }: { initial?: FieldReference }) {
   const transectId = params.get("transect") ?? data.transects[0]?.id;
   if (!transectId) return <p className="card">You have no transects to record on yet. Your network organiser assigns them.</p>;
   return (
-    <SafetyGate>
+    <SafetyGate acceptedAt={data.safetyAcceptedAt}>
       <StartVisitForm
         transects={data.transects}
         transectId={transectId}
