@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { generalise } from "@/lib/geo/generalise";
+import { thinForOverview } from "@/lib/geo/thin";
 
 describe("a sensitive route's generalised form", () => {
   it("keeps only the centre of the route's extent, to 0.1°", () => {
@@ -11,5 +12,14 @@ describe("a sensitive route's generalised form", () => {
     const a = generalise({ type: "LineString", coordinates: [[-1.26, 51.08], [-1.27, 51.09]] });
     const b = generalise({ type: "LineString", coordinates: [[-1.27, 51.09], [-1.25, 51.07], [-1.26, 51.12]] });
     expect(a.centre).toEqual(b.centre);
+  });
+});
+
+describe("routes thinned for the overview map", () => {
+  it("keeps both ends and at most the asked number of points, and leaves short routes alone", () => {
+    const line = Array.from({ length: 1001 }, (_, i) => [i, 0] as [number, number]);
+    const thin = thinForOverview(line, 11);
+    expect(thin).toEqual(Array.from({ length: 11 }, (_, i) => [i * 100, 0]));
+    expect(thinForOverview(line.slice(0, 5), 11)).toEqual(line.slice(0, 5));
   });
 });
