@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, eq, inArray, ne, or, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { sightings, species, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
@@ -30,12 +30,20 @@ export async function fieldReference(actor: Actor) {
     safetyAcceptedAt(actor),
   ]);
   const ids = transects.map((t) => t.id);
+  // "Seen here before" reaches every phone on the transect, so it holds only what a checker
+  // accepted, and a sensitive species only where this volunteer recorded it (not rejected):
+  // never another volunteer's unchecked record, nor where someone else found a sensitive species.
+  const shareable = or(
+    and(eq(sightings.status, "accepted"), eq(species.sensitive, false)),
+    and(eq(species.sensitive, true), eq(visits.volunteerId, actor.id), ne(sightings.status, "rejected")),
+  );
   const seen = ids.length
     ? await db()
         .select({ transectId: visits.transectId, speciesId: sightings.speciesId, n: sql<number>`count(*)`.mapWith(Number) })
         .from(sightings)
         .innerJoin(visits, eq(visits.id, sightings.visitId))
-        .where(and(inArray(visits.transectId, ids), sql`${sightings.status} <> 'rejected'`))
+        .innerJoin(species, eq(species.id, sightings.speciesId))
+        .where(and(inArray(visits.transectId, ids), shareable))
         .groupBy(visits.transectId, sightings.speciesId)
     : [];
   const seenByTransect: Record<string, string[]> = {};
