@@ -4,7 +4,9 @@ import type { z } from "zod";
 import { requireActor, type Actor } from "@/lib/auth/guard";
 import type { Role } from "@/lib/auth/roles";
 import { invalid, isAppError } from "@/lib/errors";
+import { requestBodyLimits, type RequestBodyLimit } from "@/lib/limits/request-bodies";
 import { fieldErrorsOf } from "@/lib/validation";
+import { isWrite, readBody, refuseByHeaders, type BodyKind } from "./read-body";
 
 type Handler<B, Q, P> = (ctx: { actor: Actor; body: B; query: Q; params: P; request: Request }) => Promise<Response | unknown>;
 
@@ -12,6 +14,10 @@ type Options<B extends z.ZodType | undefined, Q extends z.ZodType | undefined> =
   roles: readonly Role[];
   body?: B;
   query?: Q;
+  /** The body's size cap, by its name in lib/limits/request-bodies.ts; "json" unless said. */
+  bodyLimit?: RequestBodyLimit;
+  /** What a write's body may be: JSON unless the route must take a form post (see read-body.ts). */
+  accepts?: BodyKind;
 };
 
 type Infer<S> = S extends z.ZodType ? z.infer<S> : undefined;
@@ -27,19 +33,10 @@ export function errorResponse(error: unknown): NextResponse {
   return NextResponse.json({ error: { code: "internal", message: "Something went wrong on our side. Nothing was changed." } }, { status: 500 });
 }
 
-async function readJson(request: Request): Promise<unknown> {
-  const text = await request.text();
-  if (!text) return undefined;
-  try {
-    return JSON.parse(text);
-  } catch {
-    throw invalid({ _: ["The request body is not valid JSON."] }, "The request body is not valid JSON.");
-  }
-}
-
 /**
- * Wraps a route handler: checks the session and role, validates query and body with zod,
- * and turns typed errors into JSON answers (400 with field messages, 401, 403, 404...).
+ * Wraps a route handler: refuses a write's body by its declared type (415) or size (413), checks
+ * the session and role, reads the body with its byte cap (413), validates query and body with
+ * zod, and turns typed errors into JSON answers (400 with field messages, 401, 403, 404...).
  */
 export function route<B extends z.ZodType | undefined = undefined, Q extends z.ZodType | undefined = undefined, P = Record<string, string>>(
   options: Options<B, Q>,
@@ -47,6 +44,11 @@ export function route<B extends z.ZodType | undefined = undefined, Q extends z.Z
 ) {
   return async (request: Request, context: { params: Promise<P> }): Promise<Response> => {
     try {
+      const kind = options.accepts ?? "json";
+      const limit = requestBodyLimits[options.bodyLimit ?? "json"];
+      const write = isWrite(request);
+      // From the headers alone, before the session costs a database read.
+      if (write) refuseByHeaders(request, kind, limit);
       const actor = await requireActor(options.roles, request.headers);
       let query = undefined as Infer<Q>;
       if (options.query) {
@@ -56,8 +58,11 @@ export function route<B extends z.ZodType | undefined = undefined, Q extends z.Z
         query = parsed.data as Infer<Q>;
       }
       let body = undefined as Infer<B>;
+      // Every write's body is read with its cap, even where the handler ignores it: a body that
+      // is there must be of the declared kind.
+      const received = write ? await readBody(request, kind, limit) : undefined;
       if (options.body) {
-        const parsed = options.body.safeParse(await readJson(request));
+        const parsed = options.body.safeParse(received);
         if (!parsed.success) throw invalid(fieldErrorsOf(parsed.error));
         body = parsed.data as Infer<B>;
       }

@@ -64,6 +64,18 @@ describe("POST /api/field/sync", () => {
     expect(await db().select().from(visits).where(eq(visits.id, batch.visits[0]!.id))).toHaveLength(0);
   });
 
+  it("counts bytes, not characters: a body under the limit in characters but over it in UTF-8 is refused", async () => {
+    const batch = batchFor(mine, speciesId);
+    // "é" is one UTF-16 unit but two UTF-8 bytes (RFC 3629 §3).
+    const body = JSON.stringify({ ...batch, padding: "é".repeat(MAX_SYNC_BODY_BYTES / 2 + 1000) });
+    expect(body.length).toBeLessThan(MAX_SYNC_BODY_BYTES);
+    expect(new TextEncoder().encode(body).byteLength).toBeGreaterThan(MAX_SYNC_BODY_BYTES);
+    const refused = await post(body);
+    expect(refused.status).toBe(413);
+    expect(refused.json.error.code).toBe("too_large");
+    expect(await db().select().from(visits).where(eq(visits.id, batch.visits[0]!.id))).toHaveLength(0);
+  });
+
   it("answers 401 without a session and 403 for a signed-in non-volunteer", async () => {
     session.userId = null;
     expect((await post(JSON.stringify(batchFor(mine, speciesId)))).status).toBe(401);
