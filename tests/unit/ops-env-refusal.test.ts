@@ -16,6 +16,7 @@ describe("entry points on a production environment that is not set up", () => {
   for (const [script, args] of [
     ["scripts/migrate.ts", []],
     ["scripts/seed.ts", []],
+    ["scripts/setup-organiser.ts", ["--email", "ada@example.org"]],
     ["workers/index.ts", []],
   ] as const) {
     it(`${script} stops with the configuration message and no stack trace`, { timeout: 30_000 }, () => {
