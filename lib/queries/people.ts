@@ -4,6 +4,7 @@ import { and, asc, eq, gt, isNull, ne, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { invitations, users, type Role } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
+import { limitTokenCheck } from "@/lib/auth/invitation-limit";
 import { hashPassword } from "@/lib/auth/password";
 import { roleLabel } from "@/lib/auth/roles";
 import { env } from "@/lib/env";
@@ -31,7 +32,11 @@ export function pendingInvitations() {
     .orderBy(asc(invitations.createdAt));
 }
 
-/** Creates an invitation and queues its e-mail in one transaction. Returns the token (shown once). */
+/**
+ * Creates an invitation and queues its e-mail in one transaction. Returns the invitation's id and
+ * its token: the token travels in the e-mail's link and in this return value, and only its hash
+ * is stored.
+ */
 export async function invitePerson(actor: Actor, input: { name: string; email: string; role: Role }) {
   const email = input.email.trim().toLowerCase();
   const token = randomBytes(32).toString("base64url");
@@ -57,19 +62,29 @@ export async function invitePerson(actor: Actor, input: { name: string; email: s
   });
 }
 
-export async function findOpenInvitation(token: string) {
-  const [row] = await db()
-    .select()
-    .from(invitations)
-    .where(and(eq(invitations.tokenHash, hashToken(token)), isNull(invitations.acceptedAt), gt(invitations.expiresAt, new Date())))
-    .limit(1);
-  return row ?? null;
+/**
+ * The open invitation a token names, or null. A token that names none counts against the client's
+ * address, which may then have to wait (a 429 AppError; lib/auth/invitation-limit.ts).
+ */
+export function findOpenInvitation(token: string, clientAddress: string) {
+  return limitTokenCheck(clientAddress, async () => {
+    const [row] = await db()
+      .select()
+      .from(invitations)
+      .where(and(eq(invitations.tokenHash, hashToken(token)), isNull(invitations.acceptedAt), gt(invitations.expiresAt, new Date())))
+      .limit(1);
+    return row ?? null;
+  });
 }
 
 /** Turns an invitation into an account; the invitation can be used once. */
-export async function acceptInvitation(token: string, password: string) {
+export async function acceptInvitation(token: string, password: string, clientAddress: string) {
+  // The token first (a sha256 and an indexed lookup, limited per address): bcrypt's deliberate
+  // cost is spent only for a real invitation.
+  if (!(await findOpenInvitation(token, clientAddress))) throw notFound("That invitation");
   const passwordHash = await hashPassword(password);
   return db().transaction(async (tx) => {
+    // Checked again as it is used, so two acceptances at once cannot both succeed.
     const [invite] = await tx
       .update(invitations)
       .set({ acceptedAt: new Date() })

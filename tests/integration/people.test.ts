@@ -38,11 +38,11 @@ describe("inviting people and setting roles", () => {
   it("accepting creates the account with the invited role, once only", async () => {
     const actor = await organiser();
     const { token } = await invitePerson(actor, { name: "Nia Holt", email: "nia@example.org", role: "partner" });
-    await acceptInvitation(token, "a-long-password");
+    await acceptInvitation(token, "a-long-password", "203.0.113.5");
     const [u] = await db().select().from(users).where(eq(sql`lower(${users.email})`, "nia@example.org"));
     expect(u!.role).toBe("partner");
     expect(await verifyPassword("a-long-password", u!.passwordHash!)).toBe(true);
-    await expect(acceptInvitation(token, "another-password")).rejects.toMatchObject({ status: 404 });
+    await expect(acceptInvitation(token, "another-password", "203.0.113.5")).rejects.toMatchObject({ status: 404 });
   });
 
   it("an organiser changes a role; the last organiser cannot step down", async () => {
