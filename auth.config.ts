@@ -1,7 +1,8 @@
 import type { NextAuthConfig } from "next-auth";
 import { isRole, roleHome, rolesForPath } from "@/lib/auth/roles";
 
-const publicPaths = ["/sign-in", "/safety", "/offline", "/invitation"];
+/** Pages (and their sub-paths) open to strangers. */
+export const publicPaths = ["/sign-in", "/safety", "/invitation"];
 
 // Database-free part of the configuration: the proxy runs it on every request.
 // The proxy only turns strangers away early; every page, route and action checks again on the server.
