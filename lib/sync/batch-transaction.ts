@@ -1,16 +1,20 @@
 import "server-only";
-import { PostgresJsDatabase, PostgresJsSession } from "drizzle-orm/postgres-js";
+import { drizzle, type PgRemoteDatabase } from "drizzle-orm/pg-proxy";
 import type { ReservedSql } from "postgres";
 import { db, sqlClient } from "@/db/client";
-import { dialect } from "./prepared";
+import { sendPrepared } from "./prepared";
 
-/** What the sync code may use inside a batch's transaction: drizzle's query builders on one connection. */
-export type BatchTx = PostgresJsDatabase<Record<string, never>>;
+/**
+ * What the sync code may use inside a batch's transaction: the batch's own postgres.js
+ * connection (for hand-written statements, `executePrepared`) and drizzle's query builder on
+ * it. The builder is drizzle's public proxy driver (drizzle-orm/pg-proxy), which renders each
+ * statement, hands it to us to run, and maps the rows back; we run it prepared on the connection.
+ */
+export type BatchTx = { readonly connection: ReservedSql; readonly builder: PgRemoteDatabase };
 
-// drizzle() itself wants the pool's options object, which a reserved connection lacks; the pool's
-// drizzle instance (db()) has already installed its type parsers, which the connection shares.
-function queryBuilderOn(connection: ReservedSql): BatchTx {
-  return new PostgresJsDatabase(dialect, new PostgresJsSession(connection, dialect, undefined), undefined) as BatchTx;
+function batchTx(connection: ReservedSql): BatchTx {
+  const builder = drizzle(async (text, params, method) => ({ rows: await sendPrepared(connection, text, params, method === "all" ? "values" : "objects") }));
+  return { connection, builder };
 }
 
 /** What a batch's work hands back: its answer, and its writes, already sent but not yet done. */
@@ -25,7 +29,9 @@ export type BatchWork<T> = { value: T; written: Promise<unknown> };
  * back; anything else that fails gets an explicit ROLLBACK.
  */
 export async function inBatchTransaction<T>(work: (tx: BatchTx, begun: Promise<unknown>) => Promise<BatchWork<T>>): Promise<T> {
-  db(); // installs drizzle's type parsers on the pool before the first batch
+  // The connection shares the pool's type parsers, which db() sets as drizzle expects them
+  // (dates and times as text), so rows map as they do everywhere else.
+  db();
   const connection = await sqlClient().reserve();
   try {
     // postgres-js sends a query when it is executed; the reads issued next share its write.
@@ -34,7 +40,7 @@ export async function inBatchTransaction<T>(work: (tx: BatchTx, begun: Promise<u
     const begun = connection.unsafe("begin; set local plan_cache_mode = force_generic_plan").execute();
     begun.catch(() => undefined); // awaited by `work`; this only avoids an unhandled rejection
     try {
-      const { value, written } = await work(queryBuilderOn(connection), begun);
+      const { value, written } = await work(batchTx(connection), begun);
       const committed = connection.unsafe("commit").execute();
       const [, outcome] = await Promise.all([written, committed]);
       // PostgreSQL answers COMMIT of an aborted transaction with ROLLBACK rather than an error.

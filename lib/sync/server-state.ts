@@ -46,34 +46,31 @@ function loadFacts(tx: BatchTx, actor: Actor, speciesIds: string[]): Promise<Fac
  * Reads the batch's server state inside its transaction. Existing visits and sightings are
  * locked (FOR UPDATE) so a coordinator's review or a parallel resend cannot slip in between
  * this read and the batch's writes. The queries are issued together: postgres-js pipelines
- * them on the transaction's connection, so they cost about one round trip. They are marked
- * prepared because drizzle otherwise has postgres-js describe every parameterised statement
- * first, an extra round trip per query; prepared, the statement is parsed once per connection.
+ * them on the transaction's connection, so they cost about one round trip. All of them run as
+ * prepared statements (see ./prepared.ts), parsed once per connection.
  */
 export async function loadServerState(tx: BatchTx, actor: Actor, keys: StateKeys): Promise<ServerState> {
   const none = Promise.resolve([] as never[]);
   const [[facts], visitRows, sightingRows] = await Promise.all([
     loadFacts(tx, actor, keys.speciesIds),
     keys.visitIds.length
-      ? tx
+      ? tx.builder
           .select({ ...getTableColumns(visits), sectionCount: transects.sectionCount, hasReviewed: reviewedSightingOfVisit })
           .from(visits)
           .innerJoin(transects, eq(transects.id, visits.transectId))
           .where(sql`${visits.id} = any(${uuidArray(keys.visitIds)})`)
           .orderBy(visits.id)
           .for("update", { of: visits })
-          .prepare("sync_visits")
           .execute()
       : none,
     keys.sightingIds.length
-      ? tx
+      ? tx.builder
           .select({ ...getTableColumns(sightings), ownerId: visits.volunteerId })
           .from(sightings)
           .innerJoin(visits, eq(visits.id, sightings.visitId))
           .where(sql`${sightings.id} = any(${uuidArray(keys.sightingIds)})`)
           .orderBy(sightings.id)
           .for("update", { of: sightings })
-          .prepare("sync_sightings")
           .execute()
       : none,
   ]);
