@@ -1,7 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { compareSeasonsSync, comparisonChunks, finishComparison, prepareComparison, resolveOptions, runComparisonChunk } from "../../../lib/change/compare";
 import { siteParts } from "../../../lib/change/indices";
-import { pairedTTest } from "../../../lib/change/paired-test";
 import { randomPair, table } from "./support";
 
 describe("compareSeasonsSync", () => {
@@ -25,8 +24,37 @@ describe("compareSeasonsSync", () => {
     expect(r.summary.meanDissimilarity!).toBeCloseTo(mean((s) => s.dissimilarity), 12);
     expect(r.summary.lossShare! + r.summary.gainShare!).toBeCloseTo(1, 12);
     expect(r.summary.direction).toBe(r.summary.meanGains! > r.summary.meanLosses! ? "gain" : "loss");
-    const t = pairedTTest(r.sites.map((s) => s.gains), r.sites.map((s) => s.losses), { permutations: 0, seed: 1 });
-    expect(r.pairedTest).toEqual(t);
+  });
+
+  // Ten one-species sites built so that each site's gains minus losses is a tenth of the
+  // difference drug 2 - drug 1 in Student's (1908) sleep data (R's `sleep`). t does not change when
+  // every d is scaled, so the network test must print what R's t.test(extra ~ group, data = sleep,
+  // paired = TRUE) prints for those data: t = 4.0621, df = 9, p-value = 0.002833 (from memory,
+  // the values lib/change/README.md lists as check values). Per site, by hand (percentage
+  // difference, Legendre 2019): T1 = [A, 5], T2 = [A + g, 0] share A, lose 5 and gain g, and with
+  // A = (95 - g) / 2 the denominator 2A + 5 + g is 100, so losses = 0.05 and gains = g / 100;
+  // g = 10 d + 5 makes gains - losses = d / 10.
+  it("tests gains against losses over the network as Student's paired t test does (sleep data)", () => {
+    const sleepDifferences = [1.2, 2.4, 1.3, 1.3, 0.0, 1.0, 1.8, 0.8, 4.6, 1.4]; // drug 2 - drug 1, hours
+    const gained = sleepDifferences.map((d) => 10 * d + 5);
+    const before = table(gained.map((g) => [(95 - g) / 2, 5]));
+    const after = table(gained.map((g) => [(95 - g) / 2 + g, 0]));
+    const r = compareSeasonsSync(before, after, { index: "percentage-difference", permutations: 0 });
+    for (const [i, s] of r.sites.entries()) {
+      expect(s.losses).toBeCloseTo(0.05, 12);
+      expect(s.gains).toBeCloseTo(gained[i]! / 100, 12);
+    }
+    expect(r.pairedTest.n).toBe(10);
+    expect(r.pairedTest.df).toBe(9);
+    expect(r.pairedTest.t!).toBeCloseTo(4.0621, 4);
+    expect(r.pairedTest.p!).toBeCloseTo(0.002833, 6);
+    // Mean d of the sleep data is 1.58 hours, so mean gains - losses is 0.158.
+    expect(r.pairedTest.meanDifference!).toBeCloseTo(0.158, 12);
+    // By hand: mean losses 0.05, mean gains (15.8 + 5) / 100 = 0.208, mean D 0.258.
+    expect(r.summary).toMatchObject({ direction: "gain" });
+    expect(r.summary.meanLosses!).toBeCloseTo(0.05, 12);
+    expect(r.summary.meanGains!).toBeCloseTo(0.208, 12);
+    expect(r.summary.gainShare!).toBeCloseTo(0.208 / 0.258, 12);
   });
 
   it("with 0 permutations gives null p-values, no exceptional sites and no minimum p", () => {
