@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # Starts (or reuses) the project's own PostgreSQL cluster and the local S3 and SMTP fakes,
-# all on 127.0.0.1. Sourced by start.sh and test.sh; `bash scripts/services.sh up|down` also works.
+# all on 127.0.0.1. Sourced by start.sh, stop.sh and test.sh (defining functions only);
+# `bash scripts/services.sh up|down` also works.
 set -euo pipefail
 
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
@@ -8,10 +9,16 @@ PG_PORT="${TURNSTONE_PG_PORT:-54329}"
 PG_USER="app"
 PG_PASSWORD="turnstone-local"
 PG_BIN="${TURNSTONE_PG_BIN:-}"
-DATA_DIR="$ROOT/.data"
+# Pid files, logs, the local cluster and backups; another folder gives another instance.
+DATA_DIR="$(realpath -m "${TURNSTONE_DATA_DIR:-$ROOT/.data}")"
 
 log() { printf '[turnstone] %s\n' "$*"; }
 die() { printf '[turnstone] ERROR: %s\n' "$*" >&2; exit 1; }
+
+is_production() { [ "${TURNSTONE_ENV:-development}" = "production" ]; }
+
+# shellcheck source=scripts/instance.sh
+source "$ROOT/scripts/instance.sh"
 
 find_pg_bin() {
   if [ -n "$PG_BIN" ] && [ -x "$PG_BIN/pg_ctl" ]; then return 0; fi
@@ -41,8 +48,11 @@ pg_data_dir() {
   if [ "$(id -u)" = "0" ] && ! runuser -u postgres -- test -x "$DATA_DIR" 2>/dev/null; then
     mkdir -p "$DATA_DIR" && chmod o+x "$DATA_DIR" 2>/dev/null || true
     if ! runuser -u postgres -- test -x "$DATA_DIR" 2>/dev/null; then
-      # A parent folder is closed to other users: keep the cluster under /var/tmp instead.
-      dir="/var/tmp/turnstone-pg-$(printf '%s' "$ROOT" | md5sum | cut -c1-8)"
+      # A parent folder is closed to other users: keep the cluster under /var/tmp instead, one
+      # per checkout (per data folder when TURNSTONE_DATA_DIR names another).
+      local owner="$ROOT"
+      [ "$DATA_DIR" = "$ROOT/.data" ] || owner="$DATA_DIR"
+      dir="/var/tmp/turnstone-pg-$(printf '%s' "$owner" | md5sum | cut -c1-8)"
     fi
   fi
   printf '%s' "$dir"
@@ -111,7 +121,7 @@ start_fakes() {
   if port_open "$s3_port" && port_open "$smtp_port" && port_open "$mail_api_port"; then log "Local S3 and SMTP fakes already running (reusing them)"; return 0; fi
   mkdir -p "$DATA_DIR"
   log "Starting local S3 fake on 127.0.0.1:$s3_port and SMTP fake on 127.0.0.1:$smtp_port"
-  nohup "$ROOT/node_modules/.bin/tsx" "$ROOT/scripts/fakes.ts" >"$DATA_DIR/fakes.log" 2>&1 &
+  start_marked fakes nohup "$ROOT/node_modules/.bin/tsx" "$ROOT/scripts/fakes.ts" >"$DATA_DIR/fakes.log" 2>&1
   echo $! > "$DATA_DIR/fakes.pid"
   local i
   for i in $(seq 1 60); do
@@ -121,24 +131,18 @@ start_fakes() {
   die "local fakes did not start; see $DATA_DIR/fakes.log"
 }
 
-stop_pidfile() {
-  local file="$1" label="$2"
-  if [ -f "$file" ]; then
-    local pid; pid="$(cat "$file")"
-    if kill -0 "$pid" 2>/dev/null; then log "Stopping $label"; kill "$pid" 2>/dev/null || true; fi
-    rm -f "$file"
-  fi
-}
-
 services_up() {
+  if is_production; then
+    # Production names its own database, object store and mail server (lib/env.ts insists).
+    log "TURNSTONE_ENV=production: using the configured database, object store and mail server"
+    return 0
+  fi
   if [ -z "${DATABASE_URL:-}" ]; then start_postgres; else log "DATABASE_URL is set: using that server"; fi
   start_fakes
 }
 
 services_down() {
-  stop_pidfile "$DATA_DIR/app.pid" "the app"
-  stop_pidfile "$DATA_DIR/worker.pid" "the worker"
-  stop_pidfile "$DATA_DIR/fakes.pid" "the local fakes"
+  stop_instance
   stop_postgres
 }
 
