@@ -4,7 +4,8 @@ import { PhoneStore, phoneStore, setPhoneStore, setFieldUser, type LocalSighting
 import { OUTBOX_LIMITS, runOutbox } from "@/lib/offline/outbox";
 import { batchBody, encode, planBatches, type BatchLimits, type VisitGroup } from "@/lib/offline/outbox-batches";
 import { addSighting, createVisit, submitVisit } from "@/lib/offline/records";
-import { MAX_BATCH_ITEMS, MAX_SYNC_BODY_BYTES, syncEnvelope } from "@/lib/sync/contract";
+import { requestBodyLimits } from "@/lib/limits/request-bodies";
+import { sightingPayload, syncEnvelope, visitPayload } from "@/lib/sync/contract";
 import { fakeServer } from "./fake-sync-server";
 
 const userId = "3d5e7f90-1a2b-4c3d-8e4f-5a6b7c8d9e0f";
@@ -12,20 +13,23 @@ const transectId = "6f1c1f7e-2b7a-4c1e-9a55-5d2f0c7b9a10";
 const speciesId = "0b6f7a3c-8a35-4f3e-b6a4-1f2a3b4c5d6e";
 const utf8 = new TextEncoder();
 
-describe("the outbox's limits match the server's", () => {
-  it("never allows more items per batch than the contract accepts", () => {
-    expect(OUTBOX_LIMITS.visits).toBeLessThanOrEqual(MAX_BATCH_ITEMS);
-    expect(OUTBOX_LIMITS.sightings).toBeLessThanOrEqual(MAX_BATCH_ITEMS);
-    // The contract's own envelope accepts a batch filled to the outbox's limits.
-    const full = { visits: Array.from({ length: OUTBOX_LIMITS.visits }, () => ({})), sightings: Array.from({ length: OUTBOX_LIMITS.sightings }, () => ({})) };
-    expect(syncEnvelope.safeParse(full).success).toBe(true);
-  });
+// What the sync route accepts, as the protocol documents it (DEVELOPERS.md, "Field recording"):
+// a body of at most 2,000,000 UTF-8 bytes (413 above it) holding at most 500 sightings. The
+// outbox's batches are checked against these numbers and the route's own schema, not against the
+// outbox's settings.
+const ROUTE_BODY_BYTES = 2_000_000;
+const ROUTE_ITEMS = 500;
+const bytesOf = (body: string) => Buffer.byteLength(body, "utf8");
 
-  it("never sends a body larger than the sync route reads", () => {
-    // The route's own limit, the one it answers 413 above (tests/integration/sync-route.test.ts).
-    expect(OUTBOX_LIMITS.bodyBytes).toBeLessThanOrEqual(MAX_SYNC_BODY_BYTES);
-  });
-});
+/** Every item of a body as the route validates it: the envelope, then each item on its own. */
+function routeRefusals(body: string): string[] {
+  const envelope = syncEnvelope.safeParse(JSON.parse(body));
+  if (!envelope.success) return envelope.error.issues.map((i) => `envelope ${i.path.join(".")}: ${i.message}`);
+  return [
+    ...envelope.data.visits.flatMap((v, i) => visitPayload.safeParse(v).error?.issues.map((e) => `visit ${i} ${e.path.join(".")}: ${e.message}`) ?? []),
+    ...envelope.data.sightings.flatMap((v, i) => sightingPayload.safeParse(v).error?.issues.map((e) => `sighting ${i} ${e.path.join(".")}: ${e.message}`) ?? []),
+  ];
+}
 
 type Item = { id: string; visitId: string; note: string };
 const item = (id: string, visitId: string, note = "") => encode<Item>({ id, visitId, note }, { id, visitId, note });
@@ -83,8 +87,8 @@ describe("planning batches", () => {
   });
 });
 
-async function submittedVisit(sightings: number, note: string | null = null) {
-  const visitId = await createVisit({ transectId, visitDate: "2026-06-14", startTime: "10:30", temperatureC: 19, windBeaufort: 2, cloudCoverPercent: 20, sky: "mostly_sunny", coRecorders: null });
+async function submittedVisit(sightings: number, note: string | null = null, visitText: { coRecorders: string; notes: string } | null = null) {
+  const visitId = await createVisit({ transectId, visitDate: "2026-06-14", startTime: "10:30", temperatureC: 19, windBeaufort: 2, cloudCoverPercent: 20, sky: "mostly_sunny", coRecorders: visitText?.coRecorders ?? null });
   // One sighting through the phone's own code; the rest written in one go, in order, for speed.
   const sightingIds = sightings ? [await addSighting(visitId, { speciesId, count: 1, section: 1, latitude: null, longitude: null, accuracyMetres: null, note })] : [];
   const start = Date.now();
@@ -94,20 +98,58 @@ async function submittedVisit(sightings: number, note: string | null = null) {
   }));
   await phoneStore().sightings.bulkAdd(more);
   sightingIds.push(...more.map((m) => m.id));
-  await submitVisit(visitId, { endTime: "11:30", completeList: true, notes: null });
+  await submitVisit(visitId, { endTime: "11:30", completeList: true, notes: visitText?.notes ?? null });
   return { visitId, sightingIds };
 }
 
 const bodyOf = (body: string) => JSON.parse(body) as { visits: { id: string }[]; sightings: { id: string; visitId: string }[] };
 
+async function freshPhone() {
+  const db = new PhoneStore(`test-${crypto.randomUUID()}`);
+  setPhoneStore(db);
+  setFieldUser(userId);
+  await db.open();
+}
+
 // Thousands of IndexedDB writes: generous time on a busy machine.
-describe("the outbox in batches against a server with the real limits", { timeout: 30_000 }, () => {
-  beforeEach(async () => {
-    const db = new PhoneStore(`test-${crypto.randomUUID()}`);
-    setPhoneStore(db);
-    setFieldUser(userId);
-    await db.open();
+describe("the outbox's batches are what the sync route accepts", { timeout: 30_000 }, () => {
+  beforeEach(freshPhone);
+
+  it("the route's limits are the documented ones, and its envelope refuses one item more", () => {
+    expect(requestBodyLimits.syncBatch).toBe(ROUTE_BODY_BYTES);
+    const many = (n: number) => Array.from({ length: n }, () => ({}));
+    expect(syncEnvelope.safeParse({ visits: [], sightings: many(ROUTE_ITEMS) }).success).toBe(true);
+    expect(syncEnvelope.safeParse({ visits: [], sightings: many(ROUTE_ITEMS + 1) }).success).toBe(false);
+    expect(syncEnvelope.safeParse({ visits: many(ROUTE_ITEMS + 1), sightings: [] }).success).toBe(false);
   });
+
+  it("sends the longest valid records in full batches, each under the byte cap with every item valid", async () => {
+    // Every text at its longest, in a character of three UTF-8 bytes (RFC 3629 §3: U+0800..U+FFFF),
+    // the most bytes per character the contract lets through (four-byte characters count as two).
+    const visitText = { coRecorders: "—".repeat(200), notes: "—".repeat(2_000) };
+    for (let i = 0; i < 11; i++) await submittedVisit(i === 0 ? 1_100 : 2, "—".repeat(1_000), visitText);
+    const server = fakeServer();
+    await runOutbox(userId, server.fetcher);
+    const bodies = server.bodies;
+    expect(bodies.length).toBeGreaterThan(2);
+    for (const body of bodies) {
+      expect(bytesOf(body)).toBeLessThanOrEqual(ROUTE_BODY_BYTES);
+      expect(routeRefusals(body)).toEqual([]);
+    }
+    const sizes = bodies.map(bodyOf).map((b) => b.sightings.length);
+    expect(Math.max(...sizes)).toBe(ROUTE_ITEMS); // the batches really were filled to the route's item limit
+    expect(sizes.reduce((a, b) => a + b, 0)).toBe(1_100 + 10 * 2);
+  });
+
+  it("the check refuses what the route would: a body past the cap or an item past a limit", () => {
+    const visit = { id: crypto.randomUUID(), transectId, visitDate: "2026-06-14", startTime: "10:30", completeList: true, notes: "—".repeat(2_001), clientUpdatedAt: "2026-06-14T11:00:00.000Z" };
+    expect(routeRefusals(JSON.stringify({ visits: [visit], sightings: [] }))).toEqual(["visit 0 notes: At most 2000 characters."]);
+    expect(bytesOf("—")).toBe(3); // bytes, as the route counts them, not characters
+  });
+});
+
+describe("the outbox in batches against a server with the real limits", { timeout: 30_000 }, () => {
+  beforeEach(freshPhone);
 
   it("sends a visit with 1,234 sightings in three batches, the visit first, each record created once", async () => {
     const server = fakeServer();
@@ -144,7 +186,7 @@ describe("the outbox in batches against a server with the real limits", { timeou
     const bodies = server.bodies.map(bodyOf);
     expect(bodies.length).toBeGreaterThan(1);
     expect(bodies.every((b) => b.visits.length < OUTBOX_LIMITS.visits)).toBe(true);
-    for (const body of server.bodies) expect(utf8.encode(body).length).toBeLessThanOrEqual(MAX_SYNC_BODY_BYTES);
+    for (const body of server.bodies) expect(bytesOf(body)).toBeLessThanOrEqual(ROUTE_BODY_BYTES);
     for (const body of bodies) expect(body.sightings).toHaveLength(body.visits.length * 40);
     expect(server.answers.flat().filter((r) => r.kind === "sighting")).toHaveLength(480);
     const left = await phoneStore().sightings.bulkGet(visits.flatMap((v) => v.sightingIds));
