@@ -73,6 +73,10 @@ describe("recording a visit with no signal", () => {
     await context.setOffline(false);
     await expect.poll(() => home.outboxSummary(), { timeout: 30_000 }).toMatch(/Everything is sent/);
     expect(await home.outboxCount("sent")).toBe(7);
+    // The safety acknowledgement made with no signal is the volunteer's, and reached the server too.
+    await expect
+      .poll(async () => (await sql`select accepted_safety_at from users where email = ${volunteer.email}`)[0]!.accepted_safety_at, { timeout: 10_000 })
+      .not.toBeNull();
 
     const visits = await sql`select count(*)::int as n from visits where id = ${visitId!}`;
     expect(visits[0]!.n).toBe(1);
