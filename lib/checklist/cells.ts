@@ -15,7 +15,11 @@ export function readName(cell: string, what: string, max: number): Cell<string> 
   return { value: name };
 }
 
-export const readScientificName = (cell: string) => readName(cell, "scientific name", MAX_NAME_LENGTH);
+/** Scientific names are listed with semicolons (synonyms, covered species), so they cannot hold one. */
+export function readScientificName(cell: string): Cell<string> {
+  const name = readName(cell, "scientific name", MAX_NAME_LENGTH);
+  return "value" in name && name.value.includes(";") ? { error: "The scientific name cannot contain a semicolon (it separates names in lists)." } : name;
+}
 export const readVernacularName = (cell: string) => readName(cell, "vernacular name", MAX_VERNACULAR_LENGTH);
 
 export function readRank(cell: string): Cell<TaxonRank> {

@@ -54,6 +54,9 @@ export type ImportPlan = {
 };
 export type PlanResult = { ok: true; plan: ImportPlan } | { ok: false; problems: ImportProblem[] };
 
+/** A file's row, or one entry's edit: `id` names the entry it changes (so its name can change too); without it a row is matched by scientific name. */
+export type PlanRow = CsvRow & { id?: string };
+
 const lower = (s: string) => s.toLowerCase();
 const byText = (a: string, b: string) => (lower(a) < lower(b) ? -1 : lower(a) > lower(b) ? 1 : a < b ? -1 : a > b ? 1 : 0);
 const sameSet = (a: readonly (string | number)[], b: readonly (string | number)[]) => a.length === b.length && a.every((x) => b.includes(x));
@@ -71,7 +74,7 @@ type Row = {
 
 type Owner = { key: string; line: number | null; name: string; kind: "scientific" | "synonym" };
 
-export function planChecklistImport(file: { columns: readonly ChecklistColumn[]; rows: readonly CsvRow[] }, snapshot: ChecklistSnapshot): PlanResult {
+export function planChecklistImport(file: { columns: readonly ChecklistColumn[]; rows: readonly PlanRow[] }, snapshot: ChecklistSnapshot): PlanResult {
   const problems: ImportProblem[] = [];
   const entryByName = new Map(snapshot.entries.map((e) => [lower(e.scientificName), e]));
   const entryById = new Map(snapshot.entries.map((e) => [e.id, e]));
@@ -80,7 +83,7 @@ export function planChecklistImport(file: { columns: readonly ChecklistColumn[];
   const lineOfName = new Map<string, number>();
   const rows: Row[] = [];
 
-  for (const { line, cells } of file.rows) {
+  for (const { line, cells, id } of file.rows) {
     const take = <T>(column: ChecklistColumn, read: (cell: string) => Cell<T>): T | undefined => {
       const cell = cells[column];
       if (cell === undefined) return undefined;
@@ -99,7 +102,7 @@ export function planChecklistImport(file: { columns: readonly ChecklistColumn[];
       continue;
     }
     lineOfName.set(lower(name), line);
-    const existing = entryByName.get(lower(name)) ?? null;
+    const existing = (id === undefined ? entryByName.get(lower(name)) : entryById.get(id)) ?? null;
     const values: Row["values"] = existing
       ? { scientificName: name, vernacularName: existing.vernacularName, taxonRank: existing.taxonRank, sensitive: existing.sensitive, activeMonths: existing.activeMonths, synonyms: existing.synonyms }
       : { scientificName: name, vernacularName: "", taxonRank: "species", sensitive: false, activeMonths: [], synonyms: [] };
@@ -148,7 +151,9 @@ export function planChecklistImport(file: { columns: readonly ChecklistColumn[];
     const claim = (name: string, kind: Owner["kind"]) => {
       const other = owners.get(lower(name));
       if (other && other.key !== r.key) {
-        if (kind === "scientific") {
+        if (kind === "scientific" && other.kind === "scientific") {
+          problems.push(problem(r.line, "scientific_name", `"${name}" is already on the checklist as another entry (${other.name}).`));
+        } else if (kind === "scientific") {
           problems.push(problem(r.line, "scientific_name", `"${name}" is a synonym of ${where(other)}. Merge the two entries, or remove the synonym first.`));
         } else if (other.kind === "scientific") {
           problems.push(problem(r.line, "synonyms", `"${name}" is the scientific name of another entry (${where(other)}); a name belongs to one entry only.`));
@@ -167,7 +172,6 @@ export function planChecklistImport(file: { columns: readonly ChecklistColumn[];
   const finalByName = new Map<string, { key: string; rank: TaxonRank; name: string }>();
   for (const e of untouched) finalByName.set(lower(e.scientificName), { key: e.id, rank: e.taxonRank, name: e.scientificName });
   for (const r of rows) finalByName.set(lower(r.values.scientificName), { key: r.key, rank: r.values.taxonRank, name: r.values.scientificName });
-  const rankOf = new Map([...finalByName.values()].map((f) => [f.key, f.rank]));
   const nameOf = new Map([...finalByName.values()].map((f) => [f.key, f.name]));
   for (const r of rows) {
     if (r.values.taxonRank !== AGGREGATE_RANK) {
