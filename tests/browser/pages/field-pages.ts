@@ -87,3 +87,22 @@ export class VisitPage {
     await this.page.getByTestId("visit-submitted").waitFor();
   }
 }
+
+/** Opens the add-sighting form on the recording screen and types a search, so the matching species show. */
+export async function openSightingForm(page: Page, search: string) {
+  await page.getByRole("button", { name: "+ Add a sighting" }).click();
+  await page.getByRole("searchbox", { name: "Species" }).fill(search);
+  await page.getByRole("list", { name: "Matching species" }).getByRole("button").first().waitFor();
+}
+
+/** Page object for My records. */
+export class MyRecordsPage {
+  constructor(private readonly page: Page) {}
+
+  /** Opens the page and waits until the volunteer's sent records have loaded. */
+  async open() {
+    await this.page.goto("/field/records");
+    await this.page.getByRole("heading", { name: "My records" }).waitFor();
+    await this.page.getByText("Loading…").waitFor({ state: "detached" });
+  }
+}
