@@ -18,13 +18,15 @@ const oneLine = (what: string, max: number) =>
 /** Names are listed with semicolons (synonyms, covered species, a file's cells), so they hold none. */
 const listedName = (what: string, max: number) => oneLine(what, max).refine((s) => !s.includes(";"), { message: `The ${what} cannot contain a semicolon.` });
 
+const MONTHS = "Months are 1 (January) to 12 (December).";
+
 export const entrySchema = z
   .object({
     scientificName: listedName("scientific name", MAX_NAME_LENGTH),
     vernacularName: oneLine("vernacular name", MAX_VERNACULAR_LENGTH),
     taxonRank: z.enum(TAXON_RANKS, { message: "Choose a rank." }),
     sensitive: z.boolean({ message: "Say whether the species is sensitive." }),
-    activeMonths: z.array(z.number().int().min(1).max(12), { message: "Choose months from 1 to 12." }).max(12),
+    activeMonths: z.array(z.number({ message: MONTHS }).int({ message: MONTHS }).min(1, { message: MONTHS }).max(12, { message: MONTHS }), { message: MONTHS }).max(12, { message: MONTHS }),
     tagIds: z.array(z.uuid({ message: "Choose tags from the list." })).max(MAX_LIST_ITEMS),
     synonyms: z.array(listedName("synonym", MAX_NAME_LENGTH)).max(MAX_LIST_ITEMS, { message: `At most ${MAX_LIST_ITEMS} synonyms.` }),
     covers: z.array(z.uuid({ message: "Choose species from the checklist." })).max(MAX_LIST_ITEMS, { message: `At most ${MAX_LIST_ITEMS} species.` }),
@@ -47,7 +49,7 @@ export const entrySchema = z
 export type EntryForm = z.infer<typeof entrySchema>;
 
 export const tagSchema = z.object({
-  label: listedName("tag's name", MAX_TAG_LENGTH).refine((s) => slugify(s) !== "", { message: "A tag's name needs at least one letter or digit." }),
+  label: listedName("tag's name", MAX_TAG_LENGTH).refine((s) => s === "" || slugify(s) !== "", { message: "A tag's name needs at least one letter or digit." }),
   description: safeText(MAX_TAG_DESCRIPTION_LENGTH)
     .nullish()
     .transform((s) => (s ? s : null)),
