@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useState } from "react";
+import { useEffect, useState, useSyncExternalStore } from "react";
 import { belongsTo, phoneStore, type KeptOnServer, type OutboxState } from "@/lib/offline/phone-store";
 import { onSyncState, syncNow } from "@/lib/offline/sync-controller";
 import { useFieldUserId } from "./field-providers";
@@ -25,6 +25,15 @@ export function keptOnServerNote(kept: KeptOnServer): string {
   return `Sent, but the server kept its own copy of ${what}: a record checker had already reviewed it, or it had a later change. Your later edits on this phone were not applied.`;
 }
 
+function subscribeToConnectivity(changed: () => void): () => void {
+  window.addEventListener("online", changed);
+  window.addEventListener("offline", changed);
+  return () => {
+    window.removeEventListener("online", changed);
+    window.removeEventListener("offline", changed);
+  };
+}
+
 const clock = (at: number) => new Date(at).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" });
 
 /** What is waiting to leave the phone, what went, and what needs the volunteer. */
@@ -32,23 +41,16 @@ export function OutboxPanel() {
   const userId = useFieldUserId();
   const [syncing, setSyncing] = useState(false);
   const [nextRetryAt, setNextRetryAt] = useState<number | null>(null);
-  const [online, setOnline] = useState(true);
-  useEffect(() => {
-    setOnline(navigator.onLine);
-    const up = () => setOnline(true);
-    const down = () => setOnline(false);
-    window.addEventListener("online", up);
-    window.addEventListener("offline", down);
-    const off = onSyncState((s) => {
-      setSyncing(s.running);
-      setNextRetryAt(s.nextRetryAt);
-    });
-    return () => {
-      window.removeEventListener("online", up);
-      window.removeEventListener("offline", down);
-      off();
-    };
-  }, []);
+  // Rendered on the server as online; the browser's own answer replaces it once hydrated.
+  const online = useSyncExternalStore(subscribeToConnectivity, () => navigator.onLine, () => true);
+  useEffect(
+    () =>
+      onSyncState((s) => {
+        setSyncing(s.running);
+        setNextRetryAt(s.nextRetryAt);
+      }),
+    [],
+  );
   const items = useLive(async () => {
     const db = phoneStore();
     // Only this volunteer's items: a shared phone may hold someone else's too.

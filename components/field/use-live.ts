@@ -9,7 +9,7 @@ export function useLive<T>(query: () => Promise<T>, deps: unknown[]): T | undefi
   useEffect(() => {
     const subscription = liveQuery(query).subscribe({ next: setValue, error: () => setValue(undefined) });
     return () => subscription.unsubscribe();
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- the caller names the query's inputs in `deps`, as with useEffect
   }, deps);
   return value;
 }

@@ -1,23 +1,20 @@
 "use client";
 
-import { useEffect, useState } from "react";
+import { useEffect, useRef } from "react";
 
 /** A small preview of a photo kept on the phone; its object URL is let go when it leaves the screen. */
 export function PhotoThumbnail({ blob, label, onRemove }: { blob: Blob; label: string; onRemove?: () => void }) {
-  const [url, setUrl] = useState<string | null>(null);
+  const image = useRef<HTMLImageElement>(null);
+  // The object URL is made and let go with the element that shows it, outside React's state.
   useEffect(() => {
     const made = URL.createObjectURL(blob);
-    setUrl(made);
+    if (image.current) image.current.src = made;
     return () => URL.revokeObjectURL(made);
   }, [blob]);
   return (
     <li className="flex flex-col items-center gap-1" data-testid="photo-thumbnail">
-      {url ? (
-        // A plain img: next/image cannot optimise a local Blob.
-        <img src={url} alt={label} className="h-20 w-20 rounded-lg border border-shingle-200 object-cover" />
-      ) : (
-        <span className="h-20 w-20 rounded-lg bg-shingle-100" aria-hidden />
-      )}
+      {/* eslint-disable-next-line @next/next/no-img-element -- a local Blob, which next/image cannot optimise */}
+      <img ref={image} alt={label} className="h-20 w-20 rounded-lg border border-shingle-200 bg-shingle-100 object-cover" />
       {onRemove && (
         <button type="button" className="btn-quiet min-w-tap px-2 text-sm" onClick={onRemove} aria-label={`Remove ${label}`}>
           Remove

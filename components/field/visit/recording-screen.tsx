@@ -275,6 +275,7 @@ export function RecordingScreen({
           className="btn min-w-tap px-3 text-rust-700 underline"
           onConfirm={async () => {
             await deleteDraftVisit(visitId);
+            // eslint-disable-next-line @next/next/no-location-assign-relative-destination -- a document load on purpose, which the service worker answers offline (field links are plain <a> too)
             window.location.assign("/field");
           }}
         />
