@@ -14,7 +14,7 @@ import { UNKNOWN_ADDRESS, addressKey } from "@/lib/http/client-address";
 // - Per e-mail, across all addresses: 5 failures in 15 minutes free, then 1 s doubling up to at
 //   most 30 s, so a guesser with many addresses gets about two tries a minute, while the owner
 //   waits 30 s at most. An address that signed in to that e-mail in the last 30 days is exempt,
-//   so the owner on a known connection is never slowed by strangers at all.
+//   so the owner on a known connection is never slowed by strangers elsewhere.
 // - With no address known (the dev server), everyone shares one bucket, so no wait exceeds 30 s.
 // A try that must wait is refused without checking the password and is not counted; each checked
 // try is recorded as a failure before its password is checked (under a lock per e-mail and per
