@@ -69,7 +69,7 @@ export async function listTransects(actor: Actor) {
     .leftJoin(walks, eq(walks.transectId, transects.id))
     .orderBy(desc(transects.active), asc(transects.code));
   // The overview map draws every route at once: a thinned line is enough there.
-  const thinned = rows.map((r) => ({ ...r, route: { type: "LineString" as const, coordinates: thinForOverview(r.route.coordinates) } }));
+  const thinned = rows.map((r) => ({ ...r, retiredAt: r.retiredAt?.toISOString() ?? null, route: { type: "LineString" as const, coordinates: thinForOverview(r.route.coordinates) } }));
   return {
     season: season ? { id: season.id, name: season.name, status: season.status, targetVisits: season.targetVisits } : null,
     transects: await withVisibleRoutes(actor, thinned),
@@ -109,10 +109,22 @@ export async function getTransect(actor: Actor, id: string) {
     ? await db().select().from(transectSections).where(eq(transectSections.versionId, current.id)).orderBy(asc(transectSections.number))
     : [];
   const [walked] = await db().select({ walks: count() }).from(visits).where(eq(visits.transectId, id));
-  const shown = await visibleRoute(actor, row.transect);
-  const exact = shown.route.type === "LineString";
+  const t = row.transect;
+  const { route } = await visibleRoute(actor, t);
+  const exact = route.type === "LineString";
   return {
-    ...shown,
+    id: t.id,
+    code: t.code,
+    name: t.name,
+    habitatGroupId: t.habitatGroupId,
+    sensitive: t.sensitive,
+    coastal: t.coastal,
+    accessNotes: t.accessNotes,
+    active: t.active,
+    retiredAt: t.retiredAt?.toISOString() ?? null,
+    lengthMetres: t.lengthMetres,
+    sectionCount: t.sectionCount,
+    route,
     habitatName: row.habitatName,
     habitatColour: row.habitatColour,
     walks: walked?.walks ?? 0,
@@ -121,7 +133,9 @@ export async function getTransect(actor: Actor, id: string) {
       lengthMetres: s.lengthMetres,
       habitat: s.habitat,
       // A section's own stretch is part of the exact route: shown only with it.
-      coordinates: exact ? row.transect.route.coordinates.slice(s.fromPoint, s.toPoint + 1) : null,
+      from: s.fromPoint,
+      to: s.toPoint,
+      coordinates: exact ? t.route.coordinates.slice(s.fromPoint, s.toPoint + 1) : null,
     })),
     versions: versions.map(({ id: _id, ...v }) => ({ ...v, createdAt: v.createdAt.toISOString() })),
   };

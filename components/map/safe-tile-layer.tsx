@@ -1,0 +1,25 @@
+"use client";
+
+import { useState } from "react";
+import { TileLayer } from "react-leaflet";
+
+/**
+ * Background tiles from the configured XYZ template, taken away at the first tile that fails
+ * (offline, blocked, or the server is down): the routes then stay on the map's plain background
+ * instead of a grid of broken images.
+ */
+export function SafeTileLayer({ url, onFailed }: { url: string | null; onFailed?: () => void }) {
+  const [failed, setFailed] = useState(false);
+  if (!url || failed) return null;
+  return (
+    <TileLayer
+      url={url}
+      eventHandlers={{
+        tileerror: () => {
+          setFailed(true);
+          onFailed?.();
+        },
+      }}
+    />
+  );
+}
