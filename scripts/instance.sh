@@ -85,7 +85,7 @@ stop_marked() {
   mapfile -t pids < <(marked_pids "$@")
   for role in "$@"; do
     pid="$(cat "$DATA_DIR/$role.pid" 2>/dev/null || true)"
-    if unmarked_leftover "$pid"; then pids+=("$pid"); fi
+    if unmarked_leftover "$pid" && [[ " ${pids[*]} " != *" $pid "* ]]; then pids+=("$pid"); fi
   done
   if [ ${#pids[@]} -gt 0 ]; then
     log "Stopping this checkout's $* processes (pid ${pids[*]})"

@@ -35,7 +35,8 @@ node_modules/.bin/vitest run --reporter=default --reporter=json --outputFile.jso
 
 log "Browser suites (real Chromium)"
 bash scripts/ensure-chromium.sh || log "Chromium is not available: browser suites will fail"
-recreate_database turnstone_test >/dev/null && node_modules/.bin/tsx scripts/migrate.ts >/dev/null && node_modules/.bin/tsx scripts/seed.ts
+# --demo: the test database may be outside the project cluster (TEST_DATABASE_URL), and it is ours to fill.
+recreate_database turnstone_test >/dev/null && node_modules/.bin/tsx scripts/migrate.ts >/dev/null && node_modules/.bin/tsx scripts/seed.ts --demo
 unset NODE_ENV
 if npm run --silent build > "$RESULTS/build.log" 2>&1; then
   node scripts/serve.mjs -p "$TEST_PORT" > "$RESULTS/app.log" 2>&1 &
