@@ -8,8 +8,9 @@ import { MAX_PHOTO_BYTES } from "./protocol";
 // 4. GET  /api/photos/{id}?size=thumbnail|display -> 302 to a short-lived signed URL, for people allowed to see it
 // Besides the generic errors (400 invalid, 401, 403, 404), the flow answers with photoErrorCodes:
 // 400 photo_refused (final for that id: the file is not kept, the message says why),
-// 400 photo_not_uploaded (step 3 before the PUT landed: upload again), and
-// 409 photo_already_uploaded (step 1 for a photo that is already ready; step 3 then answers 200 again).
+// 400 photo_not_uploaded (step 3 before the PUT landed: upload again),
+// 409 photo_already_uploaded (step 1 for a photo that is already ready; step 3 then answers 200 again), and
+// 503 photo_busy with Retry-After (step 3 while the server's photo pool is full: nothing was judged, send again later).
 
 export * from "./protocol";
 

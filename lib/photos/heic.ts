@@ -30,7 +30,8 @@ function copyRows(plane: { data: Uint8Array; stride: number }, width: number, he
  * decoder compiled to WebAssembly (libheif-js), for servers whose libvips has no HEVC decoder.
  * libheif applies the file's 'irot'/'imir'/'clap' transforms by default, so the pixels come out
  * as the phone showed them. Only call after inspectPhoto has checked the declared sizes: the
- * decode runs synchronously and allocates what the file declares. Throws Error when unreadable.
+ * decode runs synchronously (0.4–2 s for 12 MP, hence on a photo pool thread: pool.ts) and
+ * allocates what the file declares. Throws Error when unreadable.
  */
 export async function decodeHeic(bytes: Uint8Array): Promise<RawRgba> {
   const lib = await libheif();

@@ -7,6 +7,7 @@ import { Piscina } from "piscina";
 // libraries stay loaded while the pool's threads come and go.
 import "sharp";
 import { AppError } from "@/lib/errors";
+import { photoErrorCodes } from "./contract";
 import { heldAtGate, newHoldGate, openGate, type HoldGate } from "./pool-hold";
 import type { Judgement, PhotoTask } from "./pool-task";
 
@@ -32,7 +33,7 @@ const IDLE_THREAD_MS = 60_000;
  */
 const NICE_INCREMENT = 10;
 
-export const PHOTO_BUSY = "busy";
+export const PHOTO_BUSY = photoErrorCodes.busy;
 
 /** Every slot is taken: nothing was read or written, and the phone sends the photo again later. */
 export class PhotoPoolBusy extends AppError {

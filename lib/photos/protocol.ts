@@ -13,4 +13,5 @@ export const photoErrorCodes = {
   refused: "photo_refused",
   notUploaded: "photo_not_uploaded",
   alreadyUploaded: "photo_already_uploaded",
+  busy: "photo_busy",
 } as const;
