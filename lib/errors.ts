@@ -18,6 +18,7 @@ export const unauthorized = () => new AppError(401, "unauthorized", "Please sign
 export const forbidden = (why = "You do not have access to this.") => new AppError(403, "forbidden", why);
 export const notFound = (what = "That item") => new AppError(404, "not_found", `${what} was not found.`);
 export const conflict = (why: string) => new AppError(409, "conflict", why);
+export const tooManyRequests = (why: string) => new AppError(429, "too_many_attempts", why);
 export const invalid = (fieldErrors: FieldErrors, message = "Some fields need attention.") =>
   new AppError(400, "invalid", message, fieldErrors);
 

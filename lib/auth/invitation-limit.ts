@@ -2,7 +2,7 @@ import "server-only";
 import { and, desc, eq, gt, lt, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { invitationTokenFailures } from "@/db/schema";
-import { AppError } from "@/lib/errors";
+import { tooManyRequests, type AppError } from "@/lib/errors";
 import { addressKey } from "@/lib/http/client-address";
 import { waitInWords } from "./rate-limit";
 
@@ -19,7 +19,7 @@ const LOCK_INVITATION_ADDRESS = 0x5349_0003;
 
 /** The limit's answer as the error pages and actions show it. */
 export function tooManyTokenTries(retryAfterMs: number): AppError {
-  return new AppError(429, "too_many_attempts", `Too many invitation links were tried from your connection. Try again in ${waitInWords(retryAfterMs)}.`);
+  return tooManyRequests(`Too many invitation links were tried from your connection. Try again in ${waitInWords(retryAfterMs)}.`);
 }
 
 /**
