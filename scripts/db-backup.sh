@@ -3,7 +3,11 @@
 # pg_restore) and, beside it, the photo store's object list (JSON: key, size, etag, last
 # modified), both named with the UTC time. TURNSTONE_BACKUP_DIR picks the folder (default
 # <data folder>/backups). The photos themselves stay in the store: back them up there.
-source "$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)/backup-common.sh"
+set -euo pipefail
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+cd "$ROOT"
+source "$ROOT/scripts/services.sh"
+source "$ROOT/scripts/pg-client.sh"
 
 if [ $# -gt 0 ]; then echo "usage: npm run db:backup" >&2; exit 2; fi
 

@@ -2,7 +2,11 @@
 # npm run db:restore -- FILE [--yes]: restores a dump from npm run db:backup into the database
 # DATABASE_URL names, which must be empty (no tables): never over a network's data. Asks first on
 # a terminal; --yes (for scripts) skips the question, and without a terminal it is required.
-source "$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)/backup-common.sh"
+set -euo pipefail
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+cd "$ROOT"
+source "$ROOT/scripts/services.sh"
+source "$ROOT/scripts/pg-client.sh"
 
 usage() { echo "usage: npm run db:restore -- FILE [--yes]" >&2; exit 2; }
 file="" yes=""

@@ -1,9 +1,9 @@
 // Totals vitest's JSON reports into the single closing line CI reads: "N passed, N failed".
-// A missing report (a suite that never ran) and a failed type check both count as failures.
+// A missing report (a suite that never ran), a failed type check and a failed lint each count as a failure.
 import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
 
-const [dir, tscStatus] = process.argv.slice(2);
+const [dir, tscStatus, lintStatus] = process.argv.slice(2);
 let passed = 0;
 let failed = 0;
 let skipped = 0;
@@ -24,11 +24,13 @@ for (const name of ["vitest.json", "browser.json"]) {
   skipped += (report.numPendingTests ?? 0) + (report.numTodoTests ?? 0);
   if ((report.numTotalTests ?? 0) === 0) failed += 1;
 }
-if (tscStatus !== "0") {
-  console.log("type check: failed");
-  failed += 1;
-} else {
-  passed += 1;
+for (const [check, status] of [["type check", tscStatus], ["lint", lintStatus]]) {
+  if (status !== "0") {
+    console.log(`${check}: failed`);
+    failed += 1;
+  } else {
+    passed += 1;
+  }
 }
 console.log(`${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ""}`);
 process.exit(failed === 0 ? 0 : 1);

@@ -1,10 +1,6 @@
 #!/usr/bin/env bash
-# Shared by db-backup.sh and db-restore.sh: PostgreSQL's client programs and the connection.
-set -euo pipefail
-ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
-cd "$ROOT"
-# shellcheck source=scripts/services.sh
-source "$ROOT/scripts/services.sh"
+# PostgreSQL's client programs and the connection DATABASE_URL names, for db-backup.sh,
+# db-restore.sh and test.sh. Sourced after services.sh (ROOT, die).
 
 # The newest installed copy of a PostgreSQL program (pg_dump must be as new as the server).
 pg_tool() {
@@ -16,12 +12,13 @@ pg_tool() {
   printf '%s' "$found"
 }
 
-# Exports DATABASE_URL's parts as PGHOST, PGPORT, PGUSER, PGPASSWORD, PGDATABASE (and SSL settings);
-# stops with lib/env.ts's message when the configuration is wrong.
+# Exports DATABASE_URL's parts as PGHOST, PGPORT, PGUSER, PGPASSWORD, PGDATABASE (and TLS
+# settings), so the password never shows on a command line; stops with lib/env.ts's message when
+# the configuration is wrong.
 use_database_environment() {
   local lines name value
-  lines="$(node --import tsx scripts/pg-connection-env.ts)" || exit $?
+  lines="$(node --import tsx "$ROOT/scripts/pg-connection-env.ts")" || exit $?
   while IFS=$'\t' read -r name value; do
-    [ -n "$name" ] && export "$name=$value"
+    if [ -n "$name" ]; then export "$name=$value"; fi
   done <<< "$lines"
 }
