@@ -1,20 +1,29 @@
 import { z } from "zod";
+import { BEAUFORT_FORCE, CLOUD_COVER_PERCENT, TEMPERATURE_C } from "@/lib/limits/counts";
+import { MAX_CO_RECORDERS_LENGTH } from "@/lib/limits/text";
 import { skyValues } from "@/lib/sync/protocol";
 import { recordDate, safeText } from "@/lib/validation/fields";
 
 const optionalNumber = (schema: z.ZodNumber) =>
   z.preprocess((v) => (v === "" || v === null || v === undefined || Number.isNaN(v) ? null : Number(v)), schema.nullable());
 
-/** The start-of-visit form, checked on the phone with the same limits the server applies. */
+const beaufort = `Beaufort force runs from ${BEAUFORT_FORCE.min} to ${BEAUFORT_FORCE.max}.`;
+const cloud = `Cloud cover is ${CLOUD_COVER_PERCENT.min}-${CLOUD_COVER_PERCENT.max}%.`;
+
+/** The start-of-visit form, checked on the phone with the server's limits (lib/limits). */
 export const startVisitSchema = z.object({
   transectId: z.uuid({ message: "Choose a transect." }),
   visitDate: recordDate("Choose the date of the walk."),
   startTime: z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { message: "Enter the start time, like 10:30." }),
-  temperatureC: optionalNumber(z.number({ message: "Temperature must be a number." }).min(-40, { message: "That is colder than -40 °C." }).max(60, { message: "That is hotter than 60 °C." })),
-  windBeaufort: optionalNumber(z.number().int().min(0).max(12, { message: "Beaufort force runs from 0 to 12." })),
-  cloudCoverPercent: optionalNumber(z.number().int().min(0, { message: "Cloud cover is 0-100%." }).max(100, { message: "Cloud cover is 0-100%." })),
+  temperatureC: optionalNumber(
+    z.number({ message: "Temperature must be a number." })
+      .min(TEMPERATURE_C.min, { message: `That is colder than ${TEMPERATURE_C.min} °C.` })
+      .max(TEMPERATURE_C.max, { message: `That is hotter than ${TEMPERATURE_C.max} °C.` }),
+  ),
+  windBeaufort: optionalNumber(z.number().int().min(BEAUFORT_FORCE.min).max(BEAUFORT_FORCE.max, { message: beaufort })),
+  cloudCoverPercent: optionalNumber(z.number().int().min(CLOUD_COVER_PERCENT.min, { message: cloud }).max(CLOUD_COVER_PERCENT.max, { message: cloud })),
   sky: z.preprocess((v) => (v === "" ? null : v), z.enum(skyValues).nullable()),
-  coRecorders: z.preprocess((v) => (typeof v === "string" && v.trim() === "" ? null : v), safeText(200).nullable()),
+  coRecorders: z.preprocess((v) => (typeof v === "string" && v.trim() === "" ? null : v), safeText(MAX_CO_RECORDERS_LENGTH).nullable()),
 });
 export type StartVisitInput = z.input<typeof startVisitSchema>;
 export type StartVisitValues = z.output<typeof startVisitSchema>;

@@ -1,4 +1,6 @@
 import { z } from "zod";
+import { ACCURACY_METRES, BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SECTIONS, SIGHTING_COUNT, TEMPERATURE_C, type Range } from "@/lib/limits/counts";
+import { MAX_CO_RECORDERS_LENGTH, MAX_SIGHTING_NOTE_LENGTH, MAX_VISIT_NOTES_LENGTH } from "@/lib/limits/text";
 import { plausibleInstant, recordDate, safeText } from "@/lib/validation/fields";
 import { MAX_BATCH_ITEMS, skyValues } from "./protocol";
 
@@ -16,7 +18,11 @@ const visitDate = recordDate("Use a date like 2026-05-14.");
 const clockTime = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d(:[0-5]\d)?$/, { message: "Use a time like 09:45." });
 const isoInstant = plausibleInstant("Use an ISO 8601 timestamp.");
 const optionalText = (max: number) => safeText(max).nullable().optional();
-const between = (min: number, max: number, message: string) => z.number({ message }).min(min, { message }).max(max, { message });
+const between = ({ min, max }: Range, message: string) => z.number({ message }).min(min, { message }).max(max, { message });
+const wholeBetween = (range: Range, notWhole: string, outside: { below: string; above: string }) =>
+  z.number({ message: notWhole }).int({ message: notWhole }).min(range.min, { message: outside.below }).max(range.max, { message: outside.above });
+const beaufort = `Beaufort force runs from ${BEAUFORT_FORCE.min} to ${BEAUFORT_FORCE.max}.`;
+const cloud = `Cloud cover is ${CLOUD_COVER_PERCENT.min}-${CLOUD_COVER_PERCENT.max}%.`;
 
 export const visitPayload = z
   .object({
@@ -25,13 +31,13 @@ export const visitPayload = z
     visitDate,
     startTime: clockTime,
     endTime: clockTime.nullable().optional(),
-    temperatureC: between(-40, 60, "Temperature must be a number from -40 to 60 °C.").nullable().optional(),
-    windBeaufort: z.number({ message: "Wind is a whole Beaufort force." }).int({ message: "Wind is a whole Beaufort force." }).min(0, { message: "Beaufort force runs from 0 to 12." }).max(12, { message: "Beaufort force runs from 0 to 12." }).nullable().optional(),
-    cloudCoverPercent: z.number({ message: "Cloud cover is 0-100%." }).int({ message: "Cloud cover is 0-100%." }).min(0, { message: "Cloud cover is 0-100%." }).max(100, { message: "Cloud cover is 0-100%." }).nullable().optional(),
+    temperatureC: between(TEMPERATURE_C, `Temperature must be a number from ${TEMPERATURE_C.min} to ${TEMPERATURE_C.max} °C.`).nullable().optional(),
+    windBeaufort: wholeBetween(BEAUFORT_FORCE, "Wind is a whole Beaufort force.", { below: beaufort, above: beaufort }).nullable().optional(),
+    cloudCoverPercent: wholeBetween(CLOUD_COVER_PERCENT, cloud, { below: cloud, above: cloud }).nullable().optional(),
     sky: z.enum(skyValues).nullable().optional(),
-    coRecorders: optionalText(200),
+    coRecorders: optionalText(MAX_CO_RECORDERS_LENGTH),
     completeList: z.boolean().default(false),
-    notes: optionalText(2000),
+    notes: optionalText(MAX_VISIT_NOTES_LENGTH),
     submittedAt: isoInstant.nullable().optional(),
     clientUpdatedAt: isoInstant,
   })
@@ -43,12 +49,15 @@ export const sightingPayload = z
     id: z.uuid({ message: "The sighting id must be a UUID." }),
     visitId: z.uuid({ message: "The sighting must belong to a visit." }),
     speciesId: z.uuid({ message: "Choose a species from the checklist." }),
-    count: z.number({ message: "Count must be a whole number." }).int({ message: "Count must be a whole number." }).min(0, { message: "Count cannot be negative." }).max(100_000, { message: "Count is at most 100000." }),
-    section: z.number({ message: "Section must be a whole number." }).int({ message: "Section must be a whole number." }).min(1, { message: "Sections are numbered from 1." }).max(50, { message: "A transect has at most 50 sections." }).nullable().optional(),
-    latitude: between(-90, 90, "Latitude runs from -90 to 90.").nullable().optional(),
-    longitude: between(-180, 180, "Longitude runs from -180 to 180.").nullable().optional(),
-    accuracyMetres: between(0, 100_000, "Accuracy is 0 to 100000 metres.").nullable().optional(),
-    note: optionalText(1000),
+    count: wholeBetween(SIGHTING_COUNT, "Count must be a whole number.", { below: "Count cannot be negative.", above: `Count is at most ${SIGHTING_COUNT.max}.` }),
+    section: wholeBetween(SECTIONS, "Section must be a whole number.", {
+      below: `Sections are numbered from ${SECTIONS.min}.`,
+      above: `A transect has at most ${SECTIONS.max} sections.`,
+    }).nullable().optional(),
+    latitude: between({ min: -90, max: 90 }, "Latitude runs from -90 to 90.").nullable().optional(),
+    longitude: between({ min: -180, max: 180 }, "Longitude runs from -180 to 180.").nullable().optional(),
+    accuracyMetres: between(ACCURACY_METRES, `Accuracy is ${ACCURACY_METRES.min} to ${ACCURACY_METRES.max} metres.`).nullable().optional(),
+    note: optionalText(MAX_SIGHTING_NOTE_LENGTH),
     deleted: z.boolean().optional(),
     clientUpdatedAt: isoInstant,
   })
