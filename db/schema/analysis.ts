@@ -1,5 +1,7 @@
 import { sql } from "drizzle-orm";
 import { boolean, check, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { ALPHA, PERMUTATIONS } from "../../lib/limits/analysis";
+import { literal } from "./check-sql";
 import { users } from "./people";
 import { seasons, transects } from "./sites";
 import { speciesTags } from "./taxa";
@@ -22,10 +24,10 @@ export const analysisRuns = pgTable(
     comparisonSeasonId: uuid("comparison_season_id").notNull().references(() => seasons.id, { onDelete: "restrict" }),
     dissimilarityIndex: dissimilarityIndexEnum("dissimilarity_index").notNull().default("percentage-difference"),
     mode: permutationModeEnum("mode").notNull().default("paired"),
-    permutations: integer("permutations").notNull().default(9999),
+    permutations: integer("permutations").notNull().default(PERMUTATIONS.default),
     seed: integer("seed").notNull().default(1),
     adjust: pAdjustEnum("adjust").notNull().default("holm"),
-    alpha: doublePrecision("alpha").notNull().default(0.05),
+    alpha: doublePrecision("alpha").notNull().default(ALPHA.default),
     abundanceSummary: abundanceSummaryEnum("abundance_summary").notNull().default("sum"),
     minVisits: integer("min_visits").notNull().default(1),
     effortMatching: effortMatchingEnum("effort_matching").notNull().default("none"),
@@ -44,8 +46,8 @@ export const analysisRuns = pgTable(
   (t) => [
     index("analysis_runs_seasons_idx").on(t.baselineSeasonId, t.comparisonSeasonId, t.createdAt),
     check("analysis_runs_distinct_seasons", sql`${t.baselineSeasonId} <> ${t.comparisonSeasonId}`),
-    check("analysis_runs_permutations", sql`${t.permutations} between 0 and 999999`),
-    check("analysis_runs_alpha", sql`${t.alpha} > 0 and ${t.alpha} < 1`),
+    check("analysis_runs_permutations", sql`${t.permutations} between ${literal(PERMUTATIONS.min)} and ${literal(PERMUTATIONS.max)}`),
+    check("analysis_runs_alpha", sql`${t.alpha} > ${literal(ALPHA.above)} and ${t.alpha} < ${literal(ALPHA.below)}`),
     check("analysis_runs_min_visits", sql`${t.minVisits} >= 1`),
   ],
 );

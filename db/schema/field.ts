@@ -1,5 +1,7 @@
 import { sql } from "drizzle-orm";
 import { boolean, check, date, doublePrecision, index, integer, pgEnum, pgTable, smallint, text, time, timestamp, uuid } from "drizzle-orm/pg-core";
+import { BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SECTIONS, SIGHTING_COUNT, TEMPERATURE_C } from "../../lib/limits/counts";
+import { literal } from "./check-sql";
 import { users } from "./people";
 import { seasons, transects } from "./sites";
 import { species } from "./taxa";
@@ -34,9 +36,9 @@ export const visits = pgTable(
     index("visits_transect_date_idx").on(t.transectId, t.visitDate),
     index("visits_volunteer_idx").on(t.volunteerId, t.visitDate),
     index("visits_season_idx").on(t.seasonId),
-    check("visits_wind_beaufort", sql`${t.windBeaufort} is null or ${t.windBeaufort} between 0 and 12`),
-    check("visits_cloud_percent", sql`${t.cloudCoverPercent} is null or ${t.cloudCoverPercent} between 0 and 100`),
-    check("visits_temperature_plausible", sql`${t.temperatureC} is null or ${t.temperatureC} between -40 and 60`),
+    check("visits_wind_beaufort", sql`${t.windBeaufort} is null or ${t.windBeaufort} between ${literal(BEAUFORT_FORCE.min)} and ${literal(BEAUFORT_FORCE.max)}`),
+    check("visits_cloud_percent", sql`${t.cloudCoverPercent} is null or ${t.cloudCoverPercent} between ${literal(CLOUD_COVER_PERCENT.min)} and ${literal(CLOUD_COVER_PERCENT.max)}`),
+    check("visits_temperature_plausible", sql`${t.temperatureC} is null or ${t.temperatureC} between ${literal(TEMPERATURE_C.min)} and ${literal(TEMPERATURE_C.max)}`),
     check("visits_times_ordered", sql`${t.endTime} is null or ${t.endTime} >= ${t.startTime}`),
   ],
 );
@@ -67,8 +69,8 @@ export const sightings = pgTable(
     index("sightings_visit_idx").on(t.visitId),
     index("sightings_species_idx").on(t.speciesId),
     index("sightings_status_idx").on(t.status),
-    check("sightings_count_nonnegative", sql`${t.count} >= 0`),
-    check("sightings_section_positive", sql`${t.section} is null or ${t.section} >= 1`),
+    check("sightings_count_nonnegative", sql`${t.count} >= ${literal(SIGHTING_COUNT.min)}`),
+    check("sightings_section_positive", sql`${t.section} is null or ${t.section} >= ${literal(SECTIONS.min)}`),
     check("sightings_latitude", sql`${t.latitude} is null or ${t.latitude} between -90 and 90`),
     check("sightings_longitude", sql`${t.longitude} is null or ${t.longitude} between -180 and 180`),
     check("sightings_position_pair", sql`(${t.latitude} is null) = (${t.longitude} is null)`),

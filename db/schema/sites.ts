@@ -1,5 +1,7 @@
 import { sql } from "drizzle-orm";
 import { boolean, check, date, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { SECTIONS } from "../../lib/limits/counts";
+import { literal } from "./check-sql";
 import { users } from "./people";
 
 export const habitatGroups = pgTable(
@@ -41,7 +43,7 @@ export const transects = pgTable(
   },
   (t) => [
     index("transects_habitat_idx").on(t.habitatGroupId),
-    check("transects_sections_positive", sql`${t.sectionCount} between 1 and 50`),
+    check("transects_sections_positive", sql`${t.sectionCount} between ${literal(SECTIONS.min)} and ${literal(SECTIONS.max)}`),
     check("transects_length_positive", sql`${t.lengthMetres} > 0`),
     check("transects_route_linestring", sql`${t.route}->>'type' = 'LineString' and jsonb_array_length(${t.route}->'coordinates') >= 2`),
   ],
@@ -69,7 +71,7 @@ export const transectRouteVersions = pgTable(
     uniqueIndex("transect_route_versions_number_idx").on(t.transectId, t.version),
     uniqueIndex("transect_route_versions_from_idx").on(t.transectId, t.validFrom),
     check("transect_route_versions_number_positive", sql`${t.version} >= 1`),
-    check("transect_route_versions_sections", sql`${t.sectionCount} between 1 and 50`),
+    check("transect_route_versions_sections", sql`${t.sectionCount} between ${literal(SECTIONS.min)} and ${literal(SECTIONS.max)}`),
     check("transect_route_versions_length_positive", sql`${t.lengthMetres} > 0`),
     check("transect_route_versions_linestring", sql`${t.route}->>'type' = 'LineString' and jsonb_array_length(${t.route}->'coordinates') >= 2`),
   ],
@@ -88,7 +90,7 @@ export const transectSections = pgTable(
   },
   (t) => [
     primaryKey({ columns: [t.versionId, t.number] }),
-    check("transect_sections_number", sql`${t.number} between 1 and 50`),
+    check("transect_sections_number", sql`${t.number} between ${literal(SECTIONS.min)} and ${literal(SECTIONS.max)}`),
     check("transect_sections_points", sql`${t.fromPoint} >= 0 and ${t.toPoint} > ${t.fromPoint}`),
     check("transect_sections_length", sql`${t.lengthMetres} >= 0`),
   ],
