@@ -17,12 +17,13 @@ import {
   parseSpeciesTableCsv,
 } from "../lib/change";
 import { compareSeasons } from "../lib/change/threaded";
+import { ALPHA, PERMUTATIONS } from "../lib/limits/analysis";
 
 const USAGE = `usage: npm run compare -- --before T1.csv --after T2.csv
   [--index ${INDICES.join("|")}] (default percentage-difference)
-  [--permutations N] (default 9999; 0 = no test)   [--seed N] (default 1)
+  [--permutations N] (default ${PERMUTATIONS.default}; 0 = no test; at most ${MAX_PERMUTATIONS.toLocaleString("en-GB")})   [--seed N] (default 1)
   [--mode ${PERMUTATION_MODES.join("|")}] (default paired)
-  [--adjust ${ADJUST_METHODS.join("|")}] (default holm)   [--alpha A] (default 0.05)
+  [--adjust ${ADJUST_METHODS.join("|")}] (default holm)   [--alpha A] (default ${ALPHA.default}, above ${ALPHA.above} and below ${ALPHA.below})
   [--format json|csv] (default json)   [--threads N] (default: all cores for large jobs)`;
 
 class UsageError extends Error {}
@@ -38,7 +39,9 @@ const ArgsSchema = z.object({
   before: z.string({ error: "--before T1.csv is required" }).min(1, "--before needs a file name"),
   after: z.string({ error: "--after T2.csv is required" }).min(1, "--after needs a file name"),
   index: z.enum(INDICES, { error: `--index must be one of ${INDICES.join(", ")}` }).default("percentage-difference"),
-  permutations: integer("permutations", 0, MAX_PERMUTATIONS).default(9999),
+  // Offline work may run far more permutations than the app allows (99,999): the engine's own cap,
+  // OFFLINE_MAX_PERMUTATIONS in lib/limits/analysis.ts, which says why.
+  permutations: integer("permutations", PERMUTATIONS.min, MAX_PERMUTATIONS).default(PERMUTATIONS.default),
   seed: integer("seed", 0, Number.MAX_SAFE_INTEGER).default(1),
   mode: z.enum(PERMUTATION_MODES, { error: `--mode must be one of ${PERMUTATION_MODES.join(", ")}` }).default("paired"),
   adjust: z.enum(ADJUST_METHODS, { error: `--adjust must be one of ${ADJUST_METHODS.join(", ")}` }).default("holm"),
@@ -46,8 +49,8 @@ const ArgsSchema = z.object({
     .string()
     .regex(/^(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/, "--alpha must be a number")
     .transform(Number)
-    .pipe(z.number().gt(0, "--alpha must be above 0").lte(1, "--alpha must be at most 1"))
-    .default(0.05),
+    .pipe(z.number().gt(ALPHA.above, `--alpha must be above ${ALPHA.above}`).lt(ALPHA.below, `--alpha must be below ${ALPHA.below}`))
+    .default(ALPHA.default),
   format: z.enum(["json", "csv"], { error: "--format must be json or csv" }).default("json"),
   threads: integer("threads", 1, 1024).optional(),
 });

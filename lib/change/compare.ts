@@ -1,6 +1,7 @@
 // Orchestrates one season-pair comparison: align tables, compute per-site parts, run (or
 // accept) permutation counts, adjust p-values, summarise, and test gains against losses.
 // The steps are exposed separately so a job queue can run the permutation chunks elsewhere.
+import { ALPHA, OFFLINE_MAX_PERMUTATIONS, PERMUTATIONS, isAlpha } from "../limits/analysis";
 import { adjustPValues, isExceptional } from "./adjust";
 import { fingerprintComparison } from "./fingerprint";
 import { partsFromSums } from "./indices";
@@ -24,15 +25,18 @@ import {
 
 export const DEFAULT_OPTIONS: ResolvedOptions = {
   index: "percentage-difference",
-  permutations: 9999,
+  permutations: PERMUTATIONS.default,
   seed: 1,
   mode: "paired",
   adjust: "holm",
-  alpha: 0.05,
+  alpha: ALPHA.default,
 };
 
-/** Upper bound on permutations, so a typo cannot tie up a machine for days. */
-export const MAX_PERMUTATIONS = 10_000_000;
+/**
+ * The engine's upper bound on permutations: the command line's (lib/limits/analysis.ts says why
+ * it is higher than the app's, which the app's own edges enforce).
+ */
+export const MAX_PERMUTATIONS = OFFLINE_MAX_PERMUTATIONS;
 
 export function resolveOptions(options: CompareOptions = {}): ResolvedOptions {
   const o: ResolvedOptions = {
@@ -50,7 +54,7 @@ export function resolveOptions(options: CompareOptions = {}): ResolvedOptions {
     throw new RangeError(`permutations must be an integer from 0 to ${MAX_PERMUTATIONS}, got ${o.permutations}`);
   }
   assertSeed(o.seed);
-  if (!(o.alpha > 0 && o.alpha <= 1)) throw new RangeError(`alpha must be in (0, 1], got ${o.alpha}`);
+  if (!isAlpha(o.alpha)) throw new RangeError(`alpha must be above ${ALPHA.above} and below ${ALPHA.below}, got ${o.alpha}`);
   return o;
 }
 

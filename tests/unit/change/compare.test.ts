@@ -117,6 +117,9 @@ describe("compareSeasonsSync", () => {
     expect(() => resolveOptions({ permutations: -1 })).toThrow(RangeError);
     expect(() => resolveOptions({ permutations: 2.5 })).toThrow(RangeError);
     expect(() => resolveOptions({ alpha: 0 })).toThrow(RangeError);
+    expect(() => resolveOptions({ alpha: 1 })).toThrow(RangeError); // alpha lies in (0, 1)
+    expect(resolveOptions({ permutations: 10_000_000 }).permutations).toBe(10_000_000); // the command line's offline cap
+    expect(() => resolveOptions({ permutations: 10_000_001 })).toThrow(RangeError);
     expect(() => resolveOptions({ index: "bray" as never })).toThrow(/unknown index/);
   });
 });
