@@ -48,7 +48,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         if (!accepted || !user) return null;
 
         await db().update(users).set({ lastSignInAt: new Date() }).where(eq(users.id, user.id));
-        return { id: user.id, email: user.email, name: user.name, role: user.role };
+        return { id: user.id, email: user.email, name: user.name };
       },
     }),
   ],

@@ -101,7 +101,8 @@ async function setUp(password: string): Promise<{ volunteers: Volunteer[]; speci
     return { id: randomUUID(), email: `bench-${run}-${String(i + 1).padStart(2, "0")}@${EMAIL_DOMAIN}`, transectId: t.id, sectionCount: t.sectionCount, batches: [] };
   });
   await sql.begin(async (tx) => {
-    await tx`insert into users ${tx(volunteers.map((v, i) => ({ id: v.id, email: v.email, name: `Bench volunteer ${i + 1}`, role: "volunteer", password_hash: hash, accepted_safety_at: new Date() })))}`;
+    // roles: the column's default, {volunteer}.
+    await tx`insert into users ${tx(volunteers.map((v, i) => ({ id: v.id, email: v.email, name: `Bench volunteer ${i + 1}`, password_hash: hash, accepted_safety_at: new Date() })))}`;
     await tx`insert into transect_assignments ${tx(volunteers.map((v) => ({ transect_id: v.transectId, user_id: v.id })))}`;
   });
   return { volunteers, speciesIds };

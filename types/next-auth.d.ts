@@ -1,18 +1,14 @@
 import type { DefaultSession } from "next-auth";
-import type { Role } from "@/db/schema/people";
 
+// The session cookie names the person only; roles are read from the database (lib/auth/guard.ts).
 declare module "next-auth" {
   interface Session {
-    user: { id: string; role: Role } & DefaultSession["user"];
-  }
-  interface User {
-    role?: Role;
+    user: { id: string } & DefaultSession["user"];
   }
 }
 
 declare module "@auth/core/jwt" {
   interface JWT {
-    role?: Role;
     uid?: string;
   }
 }

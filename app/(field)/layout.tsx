@@ -7,6 +7,7 @@ export default async function FieldLayout({ children }: { children: React.ReactN
   return (
     <FieldShell
       actor={actor}
+      area="/field"
       nav={[
         { href: "/field", label: "My transects" },
         { href: "/field/records", label: "My records" },

@@ -5,7 +5,11 @@ import { requirePageActor } from "@/lib/auth/guard";
 export default async function NetworkLayout({ children }: { children: React.ReactNode }) {
   const actor = await requirePageActor(["organiser"], "/network");
   return (
-    <AppShell actor={actor} nav={[{ href: "/network", label: "Overview" }, { href: "/network/people", label: "People" }, { href: "/network/history", label: "History" }]}>
+    <AppShell
+      actor={actor}
+      area="/network"
+      nav={[{ href: "/network", label: "Overview" }, { href: "/network/people", label: "People" }, { href: "/network/agreement", label: "Recorder agreement" }, { href: "/network/history", label: "History" }]}
+    >
       <NetworkProviders>{children}</NetworkProviders>
     </AppShell>
   );

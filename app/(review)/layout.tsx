@@ -1,7 +1,8 @@
 import { AppShell } from "@/components/shell/app-shell";
 import { requirePageActor } from "@/lib/auth/guard";
+import { REVIEWERS } from "@/lib/auth/roles";
 
 export default async function ReviewLayout({ children }: { children: React.ReactNode }) {
-  const actor = await requirePageActor(["coordinator"], "/review");
-  return <AppShell actor={actor} nav={[{ href: "/review", label: "Records to check" }]}>{children}</AppShell>;
+  const actor = await requirePageActor(REVIEWERS, "/review");
+  return <AppShell actor={actor} area="/review" nav={[{ href: "/review", label: "Records to check" }]}>{children}</AppShell>;
 }

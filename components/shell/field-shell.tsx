@@ -6,6 +6,6 @@ function DocumentLink({ href, className, children }: { href: string; className?:
 }
 
 /** The volunteer's frame: every link is a plain document load, so it works offline through the service worker. */
-export function FieldShell({ actor, nav, children }: { actor: Actor; nav: NavItem[]; children: React.ReactNode }) {
-  return <ShellFrame actor={actor} nav={nav} link={DocumentLink}>{children}</ShellFrame>;
+export function FieldShell({ actor, area, nav, children }: { actor: Actor; area?: string; nav: NavItem[]; children: React.ReactNode }) {
+  return <ShellFrame actor={actor} area={area} nav={nav} link={DocumentLink}>{children}</ShellFrame>;
 }

@@ -10,20 +10,30 @@ export const users = pgTable(
     id: uuid("id").primaryKey().defaultRandom(),
     email: text("email").notNull(),
     name: text("name").notNull(),
-    role: roleEnum("role").notNull().default("volunteer"),
+    // Every role the person holds: never empty, no repeats, in the order of lib/auth/roles.ts.
+    roles: roleEnum("roles").array().notNull().default(sql`'{volunteer}'::role[]`),
     passwordHash: text("password_hash"),
     active: boolean("active").notNull().default(true),
     invitedById: uuid("invited_by_id"),
     acceptedSafetyAt: timestamp("accepted_safety_at", { withTimezone: true }),
     lastSignInAt: timestamp("last_sign_in_at", { withTimezone: true }),
+    // Random, unique and kept forever: the person in published data, and everywhere once erased.
+    pseudonym: text("pseudonym").notNull().default(sql`'Recorder ' || upper(left(gen_random_uuid()::text, 8))`),
+    // The recorder agreement's answers as they stand (each acceptance: agreement_acceptances).
+    publishName: boolean("publish_name").notNull().default(false),
+    // Also set by the newsletter's one-click unsubscribe: the latest choice wins.
+    newsletter: boolean("newsletter").notNull().default(false),
+    erasedAt: timestamp("erased_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     // E-mail addresses are compared case-insensitively everywhere.
     uniqueIndex("users_email_lower_idx").on(sql`lower(${t.email})`),
-    index("users_role_idx").on(t.role),
+    uniqueIndex("users_pseudonym_idx").on(t.pseudonym),
+    index("users_roles_idx").using("gin", t.roles),
     check("users_email_shape", sql`${t.email} ~ '^[^@\\s]+@[^@\\s]+$'`),
+    check("users_roles_present", sql`cardinality(${t.roles}) > 0`),
   ],
 );
 
@@ -33,7 +43,7 @@ export const invitations = pgTable(
     id: uuid("id").primaryKey().defaultRandom(),
     email: text("email").notNull(),
     name: text("name").notNull(),
-    role: roleEnum("role").notNull(),
+    roles: roleEnum("roles").array().notNull(),
     // Only a hash of the token is kept, so a database leak does not hand out accounts.
     tokenHash: text("token_hash").notNull(),
     invitedById: uuid("invited_by_id").notNull().references(() => users.id, { onDelete: "restrict" }),
@@ -41,7 +51,42 @@ export const invitations = pgTable(
     acceptedAt: timestamp("accepted_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("invitations_token_hash_idx").on(t.tokenHash), index("invitations_email_idx").on(sql`lower(${t.email})`)],
+  (t) => [
+    uniqueIndex("invitations_token_hash_idx").on(t.tokenHash),
+    index("invitations_email_idx").on(sql`lower(${t.email})`),
+    check("invitations_roles_present", sql`cardinality(${t.roles}) > 0`),
+  ],
+);
+
+/** Licences a network may publish its records under (SPDX identifiers). */
+export const recordLicenceEnum = pgEnum("record_licence", ["CC0-1.0", "CC-BY-4.0", "CC-BY-NC-4.0"]);
+export type RecordLicence = (typeof recordLicenceEnum.enumValues)[number];
+
+/** The recorder agreement, written by an organiser; every change is a new version, never an edit. */
+export const recorderAgreements = pgTable(
+  "recorder_agreements",
+  {
+    version: integer("version").primaryKey(),
+    body: text("body").notNull(),
+    licence: recordLicenceEnum("licence").notNull(),
+    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [check("recorder_agreements_version_positive", sql`${t.version} >= 1`)],
+);
+
+/** Each time a recorder accepts a version, with their answers then. */
+export const agreementAcceptances = pgTable(
+  "agreement_acceptances",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    version: integer("version").notNull().references(() => recorderAgreements.version, { onDelete: "restrict" }),
+    publishName: boolean("publish_name").notNull(),
+    newsletter: boolean("newsletter").notNull(),
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("agreement_acceptances_user_idx").on(t.userId, t.version)],
 );
 
 /**

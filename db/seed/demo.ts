@@ -37,10 +37,10 @@ export async function seedDemo(database: Database, passwordHash: string): Promis
     const partnerId = uuid();
     const volunteerIds = demoPeople.volunteers.map(() => uuid());
     await tx.insert(t.users).values([
-      { id: organiserId, ...demoPeople.organiser, role: "organiser", passwordHash },
-      { id: coordinatorId, ...demoPeople.coordinator, role: "coordinator", passwordHash, invitedById: organiserId },
-      { id: partnerId, ...demoPeople.partner, role: "partner", passwordHash, invitedById: organiserId },
-      ...demoPeople.volunteers.map((v, i) => ({ id: volunteerIds[i]!, ...v, role: "volunteer" as const, passwordHash, invitedById: organiserId })),
+      { id: organiserId, ...demoPeople.organiser, roles: ["organiser"], passwordHash },
+      { id: coordinatorId, ...demoPeople.coordinator, roles: ["coordinator"], passwordHash, invitedById: organiserId },
+      { id: partnerId, ...demoPeople.partner, roles: ["partner"], passwordHash, invitedById: organiserId },
+      ...demoPeople.volunteers.map((v, i) => ({ id: volunteerIds[i]!, ...v, roles: ["volunteer" as const], passwordHash, invitedById: organiserId })),
     ]);
 
     const tagRows = await tx.insert(t.speciesTags).values(speciesTags).returning();

@@ -4,16 +4,17 @@ import { forbidden as forbiddenPage, redirect, unauthorized as unauthorizedPage 
 import { db } from "@/db/client";
 import { users } from "@/db/schema";
 import { forbidden, unauthorized } from "@/lib/errors";
-import type { Role } from "./roles";
+import { hasRole, type Role } from "./roles";
 import { sessionUserId } from "./session";
 
-export type Actor = { id: string; role: Role; name: string; email: string };
+/** The signed-in person; `roles` is never empty (see the API note in lib/auth/roles.ts). */
+export type Actor = { id: string; roles: Role[]; name: string; email: string };
 
 // Prepared once: this runs on every request, and a prepared statement saves a round trip.
 let prepared: ReturnType<typeof prepareActorQuery> | undefined;
 function prepareActorQuery() {
   return db()
-    .select({ id: users.id, role: users.role, name: users.name, email: users.email, active: users.active })
+    .select({ id: users.id, roles: users.roles, name: users.name, email: users.email, active: users.active })
     .from(users)
     .where(eq(users.id, sql.placeholder("id")))
     .limit(1)
@@ -33,24 +34,24 @@ export async function currentActor(requestHeaders?: Headers): Promise<Actor | nu
   if (!id) return null;
   const [row] = await actorQuery().execute({ id });
   if (!row || !row.active) return null;
-  return { id: row.id, role: row.role, name: row.name, email: row.email };
+  return { id: row.id, roles: row.roles, name: row.name, email: row.email };
 }
 
-/** For route handlers (pass the request's headers) and server actions: throws 401 / 403 AppErrors. */
+/** For route handlers (pass the request's headers) and server actions: throws 401 / 403 AppErrors. Any allowed role admits. */
 export async function requireActor(allowed?: readonly Role[], requestHeaders?: Headers): Promise<Actor> {
   const actor = await currentActor(requestHeaders);
   if (!actor) throw unauthorized();
-  if (allowed && !allowed.includes(actor.role)) throw forbidden();
+  if (allowed && !hasRole(actor, ...allowed)) throw forbidden();
   return actor;
 }
 
-/** For pages and layouts: sends strangers to sign-in and renders 403 for the wrong role. */
+/** For pages and layouts: sends strangers to sign-in and renders 403 unless the person holds an allowed role. */
 export async function requirePageActor(allowed: readonly Role[], returnTo?: string): Promise<Actor> {
   const actor = await currentActor();
   if (!actor) {
     if (returnTo) redirect(`/sign-in?from=${encodeURIComponent(returnTo)}`);
     unauthorizedPage();
   }
-  if (!allowed.includes(actor.role)) forbiddenPage();
+  if (!hasRole(actor, ...allowed)) forbiddenPage();
   return actor;
 }

@@ -5,7 +5,7 @@ import { db, type Transaction } from "@/db/client";
 import { invitations, users } from "@/db/schema";
 import { env } from "@/lib/env";
 import { conflict } from "@/lib/errors";
-import { hashToken } from "@/lib/queries/people";
+import { hashToken, holdsRole } from "@/lib/queries/people";
 
 /** How long the printed link works: whoever runs the set-up opens it straight away. */
 export const FIRST_ORGANISER_LINK_HOURS = 24;
@@ -33,7 +33,7 @@ export async function inviteFirstOrganiser(input: { name: string; email: string;
     const organisers = await tx
       .select({ email: users.email })
       .from(users)
-      .where(and(eq(users.role, "organiser"), eq(users.active, true), isNotNull(users.passwordHash)));
+      .where(and(holdsRole("organiser"), eq(users.active, true), isNotNull(users.passwordHash)));
     if (organisers.length > 0 && !input.force) {
       throw conflict(
         `The network already has an organiser (${organisers.map((o) => o.email).join(", ")}), who invites people from People in the app. Pass --force to create another one here anyway.`,
@@ -44,13 +44,13 @@ export async function inviteFirstOrganiser(input: { name: string; email: string;
     const invitedById = await setupAccountId(tx);
     // A fresh invitation replaces any earlier unanswered one for the same address.
     await tx.delete(invitations).where(and(eq(sql`lower(${invitations.email})`, email), isNull(invitations.acceptedAt)));
-    await tx.insert(invitations).values({ email, name: input.name, role: "organiser", tokenHash: hashToken(token), invitedById, expiresAt });
+    await tx.insert(invitations).values({ email, name: input.name, roles: ["organiser"], tokenHash: hashToken(token), invitedById, expiresAt });
   });
   return { link: `${env().APP_URL}/invitation/${token}`, expiresAt };
 }
 
 async function setupAccountId(tx: Transaction): Promise<string> {
-  await tx.insert(users).values({ ...SETUP_ACCOUNT, role: "organiser", active: false, passwordHash: null }).onConflictDoNothing();
+  await tx.insert(users).values({ ...SETUP_ACCOUNT, roles: ["organiser"], active: false, passwordHash: null }).onConflictDoNothing();
   const [row] = await tx.select({ id: users.id }).from(users).where(eq(sql`lower(${users.email})`, SETUP_ACCOUNT.email)).limit(1);
   return row!.id;
 }

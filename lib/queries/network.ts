@@ -1,7 +1,7 @@
 import "server-only";
 import { asc, count, eq, sql } from "drizzle-orm";
 import { db } from "@/db/client";
-import { habitatGroups, networkSettings, seasons, sightings, transects, users, visits } from "@/db/schema";
+import { habitatGroups, networkSettings, seasons, sightings, transects, users, visits, type Role } from "@/db/schema";
 
 export async function networkSettingsRow() {
   const [row] = await db().select().from(networkSettings).limit(1);
@@ -18,7 +18,13 @@ export async function networkOverview() {
       .leftJoin(transects, eq(transects.habitatGroupId, habitatGroups.id))
       .groupBy(habitatGroups.id)
       .orderBy(asc(habitatGroups.name)),
-    db().select({ role: users.role, n: count() }).from(users).where(eq(users.active, true)).groupBy(users.role),
+    // A person with several roles counts once under each.
+    db()
+      .select({ role: sql<Role>`r.role`, n: count() })
+      .from(sql`${users} cross join lateral unnest(${users.roles}) as r(role)`)
+      .where(eq(users.active, true))
+      .groupBy(sql`r.role`)
+      .orderBy(sql`r.role`),
     db()
       .select({
         id: seasons.id,

@@ -3,7 +3,7 @@ import { and, eq, inArray } from "drizzle-orm";
 import { db } from "@/db/client";
 import { transectAssignments } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
-import type { Role } from "@/lib/auth/roles";
+import { hasRole, REVIEWERS } from "@/lib/auth/roles";
 import { generalise, type GeneralisedRoute } from "@/lib/geo/generalise";
 import type { LineString } from "@/lib/geo/types";
 
@@ -14,7 +14,7 @@ import type { LineString } from "@/lib/geo/types";
 export type VisibleRoute = LineString | GeneralisedRoute;
 
 /** Roles that see every exact route. */
-const SEE_EVERY_ROUTE: readonly Role[] = ["organiser", "coordinator"];
+const SEE_EVERY_ROUTE = REVIEWERS;
 
 type WithRoute = { id: string; sensitive: boolean; route: LineString };
 
@@ -22,15 +22,15 @@ type WithRoute = { id: string; sensitive: boolean; route: LineString };
 export async function withVisibleRoutes<T extends WithRoute>(actor: Actor, rows: T[]): Promise<(Omit<T, "route"> & { route: VisibleRoute })[]> {
   const sensitiveIds = rows.filter((r) => r.sensitive).map((r) => r.id);
   let assigned = new Set<string>();
-  if (sensitiveIds.length > 0 && !SEE_EVERY_ROUTE.includes(actor.role)) {
+  if (sensitiveIds.length > 0 && !hasRole(actor, ...SEE_EVERY_ROUTE)) {
     const mine = await db()
       .select({ transectId: transectAssignments.transectId })
       .from(transectAssignments)
       .where(and(eq(transectAssignments.userId, actor.id), inArray(transectAssignments.transectId, sensitiveIds)));
-    assigned = actor.role === "volunteer" ? new Set(mine.map((m) => m.transectId)) : new Set();
+    assigned = hasRole(actor, "volunteer") ? new Set(mine.map((m) => m.transectId)) : new Set();
   }
   return rows.map((row) => {
-    const exact = !row.sensitive || SEE_EVERY_ROUTE.includes(actor.role) || assigned.has(row.id);
+    const exact = !row.sensitive || hasRole(actor, ...SEE_EVERY_ROUTE) || assigned.has(row.id);
     return { ...row, route: exact ? row.route : generalise(row.route) };
   });
 }

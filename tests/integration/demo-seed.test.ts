@@ -25,8 +25,8 @@ describe("the demo network", () => {
       (select count(*)::int from habitat_groups) as habitats,
       (select count(*)::int from species where taxon_rank = 'species') as species,
       (select count(*)::int from seasons) as seasons,
-      (select count(*)::int from users where role = 'volunteer') as volunteers,
-      (select count(*)::int from users where role <> 'volunteer') as staff`);
+      (select count(*)::int from users where roles = '{volunteer}') as volunteers,
+      (select count(*)::int from users where roles <> '{volunteer}') as staff`);
     expect(counts).toEqual({ transects: 24, habitats: 4, species: 47, seasons: 2, volunteers: 12, staff: 3 });
   });
 

@@ -14,7 +14,7 @@ describe("a volunteer's own transects", () => {
   beforeAll(async () => {
     await resetToDemo();
     const [u] = await db().select().from(users).where(eq(users.email, "volunteer01@harrowmere.example"));
-    actor = { id: u!.id, role: u!.role, name: u!.name, email: u!.email };
+    actor = { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
     mine = (await db().select().from(transectAssignments).where(eq(transectAssignments.userId, actor.id))).map((a) => a.transectId);
     const [other] = await db().select().from(transectAssignments).where(ne(transectAssignments.userId, actor.id)).limit(1);
     theirs = other!.transectId;

@@ -6,7 +6,7 @@ import { invitationTokenFailures, invitations, users } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { INVITATION_POLICY, limitTokenCheck } from "@/lib/auth/invitation-limit";
 import { hashPassword } from "@/lib/auth/password";
-import { acceptInvitation, findOpenInvitation, invitePerson } from "@/lib/queries/people";
+import { acceptInvitation, findOpenInvitation, holdsRole, invitePerson } from "@/lib/queries/people";
 import { resetToDemo } from "./support/db";
 
 // Watch bcrypt without changing it: the check must run before any password is hashed.
@@ -21,8 +21,8 @@ const INVITEE = "203.0.113.40";
 const guess = () => randomBytes(32).toString("base64url");
 
 async function organiser(): Promise<Actor> {
-  const [u] = await db().select().from(users).where(eq(users.role, "organiser")).limit(1);
-  return { id: u!.id, role: u!.role, name: u!.name, email: u!.email };
+  const [u] = await db().select().from(users).where(holdsRole("organiser")).limit(1);
+  return { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
 }
 
 describe("accepting an invitation: the token first, and a limit per address", () => {
@@ -42,7 +42,7 @@ describe("accepting an invitation: the token first, and a limit per address", ()
   });
 
   it(`after ${INVITATION_POLICY.maxFailures} unknown tokens from one address, it waits, even with a real token; other addresses do not`, async () => {
-    const { token } = await invitePerson(await organiser(), { name: "Ria Penn", email: "ria@example.org", role: "volunteer" });
+    const { token } = await invitePerson(await organiser(), { name: "Ria Penn", email: "ria@example.org", roles: ["volunteer"] });
     for (let i = 0; i < INVITATION_POLICY.maxFailures; i++) expect(await findOpenInvitation(guess(), GUESSER)).toBeNull();
     await expect(acceptInvitation(token, "a-long-password", GUESSER)).rejects.toMatchObject({ status: 429, message: expect.stringMatching(/Try again in 15 minutes/) });
     expect(hashPassword).not.toHaveBeenCalled();
@@ -59,7 +59,7 @@ describe("accepting an invitation: the token first, and a limit per address", ()
   });
 
   it("a token that works costs nothing", async () => {
-    const { token } = await invitePerson(await organiser(), { name: "Ria Penn", email: "ria@example.org", role: "volunteer" });
+    const { token } = await invitePerson(await organiser(), { name: "Ria Penn", email: "ria@example.org", roles: ["volunteer"] });
     for (let i = 0; i < 3 * INVITATION_POLICY.maxFailures; i++) expect(await findOpenInvitation(token, INVITEE)).not.toBeNull();
     await acceptInvitation(token, "a-long-password", INVITEE);
     const [left] = await db().execute<{ n: number }>(sql`select count(*)::int as n from invitation_token_failures`);

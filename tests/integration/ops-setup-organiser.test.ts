@@ -38,12 +38,12 @@ describe("npm run setup:organiser", () => {
     expect(token).toBeDefined();
 
     const invite = await findOpenInvitation(token!, clientAddress);
-    expect(invite).toMatchObject({ email: "ada@example.org", name: "Ada Lovelace", role: "organiser" });
+    expect(invite).toMatchObject({ email: "ada@example.org", name: "Ada Lovelace", roles: ["organiser"] });
     expect(invite!.expiresAt.getTime() - Date.now()).toBeGreaterThan(23 * 3_600_000);
 
     const user = await acceptInvitation(token!, "a long enough password", clientAddress);
     const [account] = await db().select().from(users).where(eq(users.id, user.id));
-    expect(account).toMatchObject({ role: "organiser", active: true, email: "ada@example.org" });
+    expect(account).toMatchObject({ roles: ["organiser"], active: true, email: "ada@example.org" });
     expect(account!.passwordHash).toMatch(/^\$2[aby]\$/);
 
     await expect(acceptInvitation(token!, "another long password", clientAddress)).rejects.toMatchObject({ status: 404 });
@@ -65,7 +65,7 @@ describe("npm run setup:organiser", () => {
     const forced = setupOrganiser("--email", "grace@example.org", "--force");
     expect(forced.status).toBe(0);
     const invite = await findOpenInvitation(linkIn(forced.stdout)!, clientAddress);
-    expect(invite).toMatchObject({ email: "grace@example.org", name: "Network organiser", role: "organiser" });
+    expect(invite).toMatchObject({ email: "grace@example.org", name: "Network organiser", roles: ["organiser"] });
   }, 120_000);
 
   it("refuses someone already in the network, even with --force", () => {

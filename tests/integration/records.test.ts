@@ -1,8 +1,9 @@
-import { and, eq, ne } from "drizzle-orm";
+import { and, eq, not } from "drizzle-orm";
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import { db } from "@/db/client";
 import { sightings, users, verificationEvents, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
+import { holdsRole } from "@/lib/queries/people";
 import { myRecords, replyToQuestion } from "@/lib/queries/records";
 import { TEXT_PROBLEMS } from "@/lib/validation/text";
 import { resetToDemo } from "./support/db";
@@ -15,7 +16,7 @@ const { POST: REPLY } = await import("@/app/(field)/api/field/records/reply/rout
 
 async function actorFor(email: string): Promise<Actor> {
   const [u] = await db().select().from(users).where(eq(users.email, email));
-  return { id: u!.id, role: u!.role, name: u!.name, email: u!.email };
+  return { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
 }
 
 async function reply(body: unknown) {
@@ -26,7 +27,7 @@ async function reply(body: unknown) {
 
 /** Puts a coordinator's question on one of the volunteer's pending sightings. */
 async function queryOneOf(actor: Actor, message: string) {
-  const [coordinator] = await db().select().from(users).where(eq(users.role, "coordinator"));
+  const [coordinator] = await db().select().from(users).where(holdsRole("coordinator"));
   const [target] = await db()
     .select({ id: sightings.id })
     .from(sightings)
@@ -126,7 +127,7 @@ describe("a volunteer's own records and answers to questions", () => {
     session.userId = null;
     const stranger = await GET(new Request("http://localhost/api/field/records"), { params: Promise.resolve({}) });
     expect(stranger.status).toBe(401);
-    const [someoneElse] = await db().select().from(users).where(ne(users.role, "volunteer")).limit(1);
+    const [someoneElse] = await db().select().from(users).where(not(holdsRole("volunteer"))).limit(1);
     session.userId = someoneElse!.id;
     expect((await GET(new Request("http://localhost/api/field/records"), { params: Promise.resolve({}) })).status).toBe(403);
   });

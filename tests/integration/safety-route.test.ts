@@ -22,7 +22,7 @@ async function post(body: string) {
 
 async function person(email: string): Promise<Actor> {
   const [u] = await db().select().from(users).where(eq(users.email, email));
-  return { id: u!.id, role: u!.role, name: u!.name, email: u!.email };
+  return { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
 }
 
 async function storedAt(userId: string) {

@@ -87,7 +87,7 @@ describe("database rules", () => {
 
   it("treats e-mail addresses case-insensitively", async () => {
     const [u] = await db().select().from(users).limit(1);
-    const code = await sqlState(db().insert(users).values({ email: u!.email.toUpperCase(), name: "Copy", role: "volunteer" }));
+    const code = await sqlState(db().insert(users).values({ email: u!.email.toUpperCase(), name: "Copy", roles: ["volunteer"] }));
     expect(code).toBe("23505");
   });
 

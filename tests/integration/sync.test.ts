@@ -11,7 +11,7 @@ import { resetToDemo } from "./support/db";
 
 async function actorFor(email: string): Promise<Actor> {
   const [u] = await db().select().from(users).where(eq(users.email, email));
-  return { id: u!.id, role: u!.role, name: u!.name, email: u!.email };
+  return { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
 }
 
 function visitOf(transectId: string, over: Record<string, unknown> = {}) {

@@ -83,7 +83,7 @@ describe("who may use the transect and habitat routes", () => {
 
 describe("a sensitive transect's exact route", () => {
   let sensitive: typeof transects.$inferSelect;
-  const actor = async (email: string, role: Actor["role"]): Promise<Actor> => ({ id: await userId(email), role, name: "", email });
+  const actor = async (email: string, role: Actor["roles"][number]): Promise<Actor> => ({ id: await userId(email), roles: [role], name: "", email });
 
   beforeAll(async () => {
     await resetToDemo();

@@ -37,7 +37,7 @@ describe("retiring a transect", () => {
   });
 
   it("stops it reaching the assigned volunteer's phone, keeps its walks, sightings and assignment, and logs it", async () => {
-    const volunteer = { id: volunteerId, role: "volunteer" as const, name: "", email: demo.volunteer };
+    const volunteer = { id: volunteerId, roles: ["volunteer" as const], name: "", email: demo.volunteer };
     expect((await assignedTransects(volunteer)).transects.map((t) => t.id)).toContain(id);
     const { status, json } = await call(retire.POST, { params: { id } });
     expect(status).toBe(200);

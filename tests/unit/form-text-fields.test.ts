@@ -8,7 +8,7 @@ const visit = { transectId: "6f1c1f7e-2b7a-4c1e-9a55-5d2f0c7b9a10", visitDate: "
 
 describe("free text and dates in the organiser's and the volunteer's forms", () => {
   it("refuses NUL and broken characters in a person's name, and still takes an ordinary one", () => {
-    const base = { email: "ana@example.org", role: "volunteer" as const };
+    const base = { email: "ana@example.org", roles: ["volunteer" as const] };
     expect(inviteSchema.safeParse({ ...base, name: "Ana\u0000" }).success).toBe(false);
     expect(inviteSchema.safeParse({ ...base, name: "Ana \ud800" }).success).toBe(false);
     expect(inviteSchema.safeParse({ ...base, name: "A" }).success).toBe(false);

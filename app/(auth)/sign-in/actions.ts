@@ -8,7 +8,7 @@ import { db } from "@/db/client";
 import { users } from "@/db/schema";
 import { waitInWords } from "@/lib/auth/rate-limit";
 import { safeReturnPath } from "@/lib/auth/return-path";
-import { roleHome } from "@/lib/auth/roles";
+import { homeFor } from "@/lib/auth/roles";
 import { env } from "@/lib/env";
 import { fieldErrorsOf } from "@/lib/validation";
 import type { FieldErrors } from "@/lib/errors";
@@ -31,7 +31,7 @@ export async function signInAction(input: unknown): Promise<SignInResult> {
     }
     throw error;
   }
-  // Signed in: go straight to the page asked for when it is on this site, or to the role's own home.
-  const [user] = await db().select({ role: users.role }).from(users).where(eq(sql`lower(${users.email})`, parsed.data.email.toLowerCase())).limit(1);
-  redirect(safeReturnPath(parsed.data.from, env().APP_URL) ?? (user ? roleHome[user.role] : "/"));
+  // Signed in: go straight to the page asked for when it is on this site, or to the person's first area.
+  const [user] = await db().select({ roles: users.roles }).from(users).where(eq(sql`lower(${users.email})`, parsed.data.email.toLowerCase())).limit(1);
+  redirect(safeReturnPath(parsed.data.from, env().APP_URL) ?? (user ? homeFor(user.roles) : "/"));
 }

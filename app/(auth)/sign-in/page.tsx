@@ -3,7 +3,7 @@ import { redirect } from "next/navigation";
 import { LogoMark } from "@/components/brand/logo-mark";
 import { currentActor } from "@/lib/auth/guard";
 import { safeReturnPath } from "@/lib/auth/return-path";
-import { roleHome } from "@/lib/auth/roles";
+import { homeFor } from "@/lib/auth/roles";
 import { env } from "@/lib/env";
 import { SignInForm } from "./sign-in-form";
 
@@ -11,7 +11,7 @@ export const metadata: Metadata = { title: "Sign in" };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ from?: string }> }) {
   const actor = await currentActor();
-  if (actor) redirect(roleHome[actor.role]);
+  if (actor) redirect(homeFor(actor.roles));
   const { from } = await searchParams;
   return (
     <main className="mx-auto flex min-h-dvh max-w-md flex-col justify-center px-4 py-10">

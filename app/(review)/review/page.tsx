@@ -1,11 +1,12 @@
 import type { Metadata } from "next";
 import { requirePageActor } from "@/lib/auth/guard";
+import { REVIEWERS } from "@/lib/auth/roles";
 import { reviewCounts, reviewQueue } from "@/lib/queries/review";
 
 export const metadata: Metadata = { title: "Records to check" };
 
 export default async function ReviewHome() {
-  await requirePageActor(["coordinator"], "/review");
+  await requirePageActor(REVIEWERS, "/review");
   const [counts, queue] = await Promise.all([reviewCounts(), reviewQueue(30)]);
   return (
     <div className="space-y-6">

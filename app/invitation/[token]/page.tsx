@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { headers } from "next/headers";
 import { LogoMark } from "@/components/brand/logo-mark";
-import { roleLabel } from "@/lib/auth/roles";
+import { rolesInWords } from "@/lib/auth/roles";
 import { isAppError } from "@/lib/errors";
 import { clientAddress } from "@/lib/http/client-address";
 import { findOpenInvitation } from "@/lib/queries/people";
@@ -21,7 +21,7 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
         {invite ? (
           <>
             <h1 className="mb-2 text-xl font-bold">Welcome, {invite.name}</h1>
-            <p className="mb-4">You are joining as {roleLabel[invite.role].toLowerCase()} with {invite.email}.</p>
+            <p className="mb-4">You are joining as {rolesInWords(invite.roles)} with {invite.email}.</p>
             <AcceptForm token={token} />
           </>
         ) : "wait" in found ? (

@@ -1,59 +1,52 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState, useTransition } from "react";
+import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useForm } from "react-hook-form";
-import { roleLabel, roles } from "@/lib/auth/roles";
-import { inviteAction } from "./actions";
+import type { z } from "zod";
+import { ApiError, api, peopleKeys } from "./people-api";
+import { RoleChoices } from "./role-choices";
 import { inviteSchema, type InviteInput } from "./schema";
 
+type InviteValues = z.output<typeof inviteSchema>;
+const fields = ["name", "email", "roles"] as const;
+
 export function InviteForm() {
-  const [notice, setNotice] = useState<{ ok: boolean; text: string } | null>(null);
-  const [pending, startTransition] = useTransition();
-  const { register, handleSubmit, reset, setError, formState: { errors } } = useForm<InviteInput>({
+  const queryClient = useQueryClient();
+  const { register, handleSubmit, reset, setError, formState: { errors } } = useForm<InviteInput, unknown, InviteValues>({
     resolver: zodResolver(inviteSchema),
-    defaultValues: { name: "", email: "", role: "volunteer" },
+    defaultValues: { name: "", email: "", roles: ["volunteer"] },
+  });
+  const invite = useMutation({
+    mutationFn: (values: InviteValues) => api<{ invitation: { email: string } }>("/api/network/people", { body: values }),
+    onSuccess: async () => {
+      reset();
+      await queryClient.invalidateQueries({ queryKey: peopleKeys.all });
+    },
+    onError: (error) => {
+      if (error instanceof ApiError) for (const f of fields) if (error.fields[f]) setError(f, { message: error.fields[f]![0]! });
+    },
   });
 
-  const onSubmit = handleSubmit((values) =>
-    startTransition(async () => {
-      const result = await inviteAction(values);
-      if (result.ok) {
-        setNotice({ ok: true, text: `Invitation sent to ${result.data.email}.` });
-        reset();
-      } else {
-        setNotice({ ok: false, text: result.message });
-        for (const [field, msgs] of Object.entries(result.fieldErrors ?? {})) {
-          if (field === "name" || field === "email" || field === "role") setError(field, { message: msgs[0] });
-        }
-      }
-    }),
-  );
-
   return (
-    <form onSubmit={onSubmit} noValidate className="grid gap-3 sm:grid-cols-4 sm:items-end">
-      <div>
-        <label htmlFor="invite-name" className="field-label">Name</label>
-        <input id="invite-name" className="field-input" {...register("name")} />
-        {errors.name && <p className="field-error">{errors.name.message}</p>}
+    <form onSubmit={handleSubmit((v) => invite.mutate(v))} noValidate className="space-y-3">
+      <div className="grid gap-3 sm:grid-cols-2">
+        <div>
+          <label htmlFor="invite-name" className="field-label">Name</label>
+          <input id="invite-name" className="field-input" {...register("name")} />
+          {errors.name && <p className="field-error">{errors.name.message}</p>}
+        </div>
+        <div>
+          <label htmlFor="invite-email" className="field-label">E-mail</label>
+          <input id="invite-email" type="email" className="field-input" {...register("email")} />
+          {errors.email && <p className="field-error">{errors.email.message}</p>}
+        </div>
       </div>
-      <div>
-        <label htmlFor="invite-email" className="field-label">E-mail</label>
-        <input id="invite-email" type="email" className="field-input" {...register("email")} />
-        {errors.email && <p className="field-error">{errors.email.message}</p>}
-      </div>
-      <div>
-        <label htmlFor="invite-role" className="field-label">Role</label>
-        <select id="invite-role" className="field-input" {...register("role")}>
-          {roles.map((r) => (
-            <option key={r} value={r}>{roleLabel[r]}</option>
-          ))}
-        </select>
-      </div>
-      <button type="submit" className="btn-primary" disabled={pending}>{pending ? "Sending…" : "Send invitation"}</button>
-      {notice && (
-        <p role="status" className={`sm:col-span-4 font-bold ${notice.ok ? "text-lichen-700" : "text-rust-700"}`}>{notice.text}</p>
-      )}
+      <RoleChoices idPrefix="invite" register={register("roles")} error={errors.roles?.message ?? errors.roles?.root?.message} />
+      <button type="submit" className="btn-primary" disabled={invite.isPending}>{invite.isPending ? "Sending…" : "Send invitation"}</button>
+      <p role="status" className={`font-bold ${invite.isError ? "text-rust-700" : "text-lichen-700"}`}>
+        {invite.isSuccess ? `Invitation sent to ${invite.data.invitation.email}.` : invite.isError ? invite.error.message : ""}
+      </p>
     </form>
   );
 }
