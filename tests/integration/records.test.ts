@@ -20,7 +20,7 @@ async function actorFor(email: string): Promise<Actor> {
 }
 
 async function reply(body: unknown) {
-  const request = new Request("http://localhost/api/field/records/reply", { method: "POST", body: JSON.stringify(body) });
+  const request = new Request("http://localhost/api/field/records/reply", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
   const response = await REPLY(request, { params: Promise.resolve({}) });
   return { status: response.status, json: (await response.json()) as Record<string, any> };
 }
