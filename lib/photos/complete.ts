@@ -108,6 +108,18 @@ async function settle(row: PhotoRow, verdict: Verdict): Promise<PhotoRow> {
   return won;
 }
 
+/** Completions under way in this process, by photo id. Other processes meet at the final UPDATE. */
+const settlingNow = new Map<string, Promise<PhotoRow>>();
+
+async function judgeAndSettle(row: PhotoRow): Promise<PhotoRow> {
+  const verdict = await judgeUpload(row.uploadKey);
+  if (verdict !== null) return settle(row, verdict);
+  // No original: not uploaded yet, or another completion settled the photo and deleted it.
+  const now = await photoRow(row.id);
+  if (!now) throw notFound("That photo");
+  return now;
+}
+
 /**
  * Step 3 of the upload flow: checks the uploaded bytes, writes the display and thumbnail images
  * and marks the photo ready, or records why it was refused. The work happens outside any
@@ -120,13 +132,12 @@ export async function completeUpload(actor: Actor, photoId: string): Promise<Pho
   if (!row) throw notFound("That photo");
   if (row.uploadedById !== actor.id) throw forbidden("You can only complete your own uploads.");
   if (row.status !== "awaiting_upload") return answerOf(row);
-
-  const verdict = await judgeUpload(row.uploadKey);
-  if (verdict === null) {
-    // No original: not uploaded yet, or another completion settled the photo and deleted it.
-    const now = await photoRow(photoId);
-    if (!now) throw notFound("That photo");
-    return answerOf(now);
+  // A phone that gave up waiting asks again: in this process, it joins the completion under way.
+  let settling = settlingNow.get(photoId);
+  if (!settling) {
+    settling = judgeAndSettle(row).finally(() => settlingNow.delete(photoId));
+    settlingNow.set(photoId, settling);
   }
-  return answerOf(await settle(row, verdict));
+  return answerOf(await settling);
 }
+

@@ -25,6 +25,11 @@ export async function heldAtGate(gate: HoldGate, count: number): Promise<void> {
   }
 }
 
+/** How many tasks have reached the gate so far. */
+export function countAtGate(gate: HoldGate): number {
+  return Atomics.load(gate, HELD);
+}
+
 export function openGate(gate: HoldGate): void {
   Atomics.store(gate, RELEASED, 1);
   Atomics.notify(gate, RELEASED);

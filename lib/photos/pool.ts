@@ -8,7 +8,7 @@ import { Piscina } from "piscina";
 import "sharp";
 import { AppError } from "@/lib/errors";
 import { photoErrorCodes } from "./contract";
-import { heldAtGate, newHoldGate, openGate, type HoldGate } from "./pool-hold";
+import { countAtGate, heldAtGate, newHoldGate, openGate, type HoldGate } from "./pool-hold";
 import type { Judgement, PhotoTask } from "./pool-task";
 
 // Photos are inspected, decoded and scaled on a small pool of worker threads (piscina), never on
@@ -121,13 +121,15 @@ export async function closePhotoPool(): Promise<void> {
 
 /**
  * Test seam: tasks started from now on wait in their thread until release(). held(n) resolves
- * once n of them are waiting, so a test can look at the database while the pool is working.
+ * once n of them are waiting, so a test can look at the database while the pool is working;
+ * started() counts the tasks that reached the gate.
  */
-export function holdPhotoTasks(): { held(count: number): Promise<void>; release(): void } {
+export function holdPhotoTasks(): { held(count: number): Promise<void>; started(): number; release(): void } {
   const gate = newHoldGate();
   state.hold = gate;
   return {
     held: (count) => heldAtGate(gate, count),
+    started: () => countAtGate(gate),
     release() {
       if (state.hold === gate) state.hold = undefined;
       openGate(gate);

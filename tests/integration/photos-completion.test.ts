@@ -3,7 +3,7 @@ import exifr from "exifr";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { db, sqlClient } from "@/db/client";
-import { visits } from "@/db/schema";
+import { photos, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { completeUpload } from "@/lib/photos/complete";
 import { decodeHeic } from "@/lib/photos/heic";
@@ -99,6 +99,46 @@ describe("photo completion under load", () => {
     const meta = await sharp(display).metadata();
     expect([meta.width, meta.height]).toEqual([1600, 1200]);
     expect(await exifr.gps(display)).toBeUndefined();
+  });
+
+  it("judges a photo once when the phone asks again while its completion is under way", { timeout: 60_000 }, async () => {
+    const id = await uploadPhoto(volunteer, visitId, phonePortraitHeic);
+    const hold = holdPhotoTasks();
+    let answers: Promise<unknown[]> | undefined;
+    try {
+      const first = completeUpload(volunteer, id);
+      await hold.held(1);
+      const again = completeUpload(volunteer, id);
+      answers = Promise.all([first, again]);
+      // Time for the second call to read the row (still awaiting: the first cannot settle yet).
+      await new Promise((resolve) => setTimeout(resolve, 500));
+    } finally {
+      hold.release();
+    }
+    const ready = { photo: { id, status: "ready", width: 240, height: 320 } };
+    expect(await answers).toEqual([ready, ready]);
+    expect(hold.started()).toBe(1);
+  });
+
+  it("answers as another app process did when that one settles the photo first, and writes no images of its own", { timeout: 60_000 }, async () => {
+    const id = await uploadPhoto(volunteer, visitId, phonePortraitHeic);
+    const hold = holdPhotoTasks();
+    let answer: Promise<unknown> | undefined;
+    try {
+      answer = completeUpload(volunteer, id).then(
+        (ready) => ready,
+        (error: unknown) => error,
+      );
+      await hold.held(1);
+      // Another process (the cluster runs one per core) finished the same photo meanwhile.
+      await db().update(photos).set({ status: "refused", refusalReason: "Refused by the other process.", processedAt: new Date() }).where(eq(photos.id, id));
+    } finally {
+      hold.release();
+    }
+    expect(await answer).toMatchObject({ status: 400, code: PHOTO_REFUSED, message: "Refused by the other process." });
+    expect(await photoRow(id)).toMatchObject({ status: "refused", refusalReason: "Refused by the other process.", displayKey: null });
+    expect(await keysUnder(`display/${visitId}/${id}`)).toEqual([]);
+    expect(await keysUnder(`thumbnails/${visitId}/${id}`)).toEqual([]);
   });
 
   it("refuses a file once: overlapping completions get the same refusal, and it is recorded once", async () => {
