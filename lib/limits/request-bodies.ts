@@ -21,6 +21,7 @@ export const requestBodyLimits = {
   serverAction: 1024 * 1024,
   /** A route file (at most 10 MB: MAX_ROUTE_FILE_BYTES in lib/geo/limits.ts) sent as a JSON string, which escaping can at most double. */
   routeFile: 2 * 10 * 1024 * 1024 + 64 * 1024,
+  /** A checklist CSV (at most 10 MB: MAX_CHECKLIST_FILE_BYTES in lib/checklist/limits.ts) sent as a JSON string, which escaping can at most double. */ checklistFile: 2 * 10 * 1024 * 1024 + 64 * 1024,
 } as const;
 
 export type RequestBodyLimit = keyof typeof requestBodyLimits;
