@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
+import { connection } from "next/server";
 import "./globals.css";
 
 // Atkinson Hyperlegible (SIL OFL), shipped with the app: designed for legibility outdoors and at low vision.
@@ -22,7 +23,10 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { themeColor: "#155555", width: "device-width", initialScale: 1 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page renders per request, so Next can put this request's CSP nonce (set in proxy.ts)
+  // on its scripts; a page built ahead of time would carry none and be refused.
+  await connection();
   return (
     <html lang="en-GB" className={body.variable}>
       <body className="min-h-dvh font-sans">{children}</body>
