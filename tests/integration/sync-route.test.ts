@@ -14,10 +14,17 @@ vi.mock("@/lib/auth/session", () => ({ sessionUserId: async () => session.userId
 
 const { POST } = await import("@/app/(field)/api/field/sync/route");
 
+/** The route's answer: per-item results, or an error (one of the two). */
+type SyncAnswer = {
+  results: { kind: string; index: number; status: string; errors?: Record<string, string[]>; reason?: string }[];
+  serverTime: string;
+  error: { code: string; message: string; fields: Record<string, string[]> };
+};
+
 async function post(body: string) {
   const request = new Request("http://localhost/api/field/sync", { method: "POST", body, headers: { "content-type": "application/json" } });
   const response = await POST(request, { params: Promise.resolve({}) });
-  return { status: response.status, json: (await response.json()) as Record<string, any> };
+  return { status: response.status, json: (await response.json()) as SyncAnswer };
 }
 
 async function userId(email: string) {
