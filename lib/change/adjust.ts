@@ -40,7 +40,7 @@ export function adjustPValues(pValues: ReadonlyArray<number | null>, method: Adj
   return out;
 }
 
-/** A site is exceptional where its adjusted p-value is at most alpha (method.md). */
+/** A site is exceptional where its adjusted p-value is at most alpha (README.md, "Many sites at once"). */
 export function isExceptional(pAdjusted: number | null, alpha: number): boolean {
   return pAdjusted !== null && pAdjusted <= alpha;
 }

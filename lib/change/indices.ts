@@ -3,7 +3,7 @@
 // Ružička and the percentage difference (Bray-Curtis).
 import type { Direction, IndexName } from "./types";
 
-/** Values within this distance count as equal (method.md: permutation test and direction). */
+/** Values within this distance count as equal (README.md: "One site" and "The permutation test"). */
 export const TOLERANCE = 1e-10;
 
 export function isPresenceAbsence(index: IndexName): boolean {

@@ -96,7 +96,7 @@ function countExceedances(
  * Counts, per site, permuted D >= threshold. A, B, C of site s sit side by side at 3s,
  * 3s+1, 3s+2, so one placement touches one spot; the same expression as observedSums gives
  * D, so an unchanged table reproduces D bit for bit. An empty permuted site has no D and
- * never counts (method.md).
+ * never counts (README.md, "The permutation test").
  */
 function countSites(abc: Float64Array, threshold: Float64Array, double: boolean, exceed: Int32Array): void {
   for (let i = 0; i < exceed.length; i++) {
@@ -268,7 +268,7 @@ export function addChunkCounts(nSites: number, total: number, chunks: readonly C
   return sum;
 }
 
-/** p_i = (1 + count_i) / (1 + R) (method.md; Legendre 2019); null when R = 0. */
+/** p_i = (1 + count_i) / (1 + R) (README.md; Legendre 2019); null when R = 0. */
 export function permutationPValues(counts: ArrayLike<number>, permutations: number): Array<number | null> {
   return Array.from(counts, (c) => (permutations > 0 ? (1 + c) / (1 + permutations) : null));
 }

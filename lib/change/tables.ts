@@ -1,4 +1,4 @@
-// Building, checking and aligning site-by-species tables (method.md, "Input").
+// Building, checking and aligning site-by-species tables (README.md, "What goes in").
 import type { ExcludedSite, IndexName, PreparedPair, SpeciesRecord, SpeciesTable } from "./types";
 import { isPresenceAbsence } from "./indices";
 

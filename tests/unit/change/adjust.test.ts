@@ -8,7 +8,7 @@ const close = (actual: Array<number | null>, expected: number[]) => {
   actual.forEach((v, i) => expect(v).toBeCloseTo(expected[i]!, 12));
 };
 
-describe("check values (method.md, worked by hand)", () => {
+describe("check values (lib/change/README.md, worked by hand)", () => {
   const p = [0.01, 0.02, 0.03, 0.04, 0.05];
 
   // Holm (1979): sorted p times (m - i + 1) = 0.05, 0.08, 0.09, 0.08, 0.05, then the

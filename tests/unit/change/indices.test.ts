@@ -34,7 +34,7 @@ describe("check values", () => {
   });
 
   // ml-distance: distance.sorensen is the percentage difference, distance.soergel the
-  // Ružička dissimilarity (method.md check values).
+  // Ružička dissimilarity (lib/change/README.md, "Check values").
   it("abundance indices match ml-distance on x=[1,0,3,2], y=[0,2,3,4]", () => {
     const x = [1, 0, 3, 2];
     const y = [0, 2, 3, 4];
