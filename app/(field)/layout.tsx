@@ -1,9 +1,13 @@
 import { FieldProviders } from "@/components/field/field-providers";
 import { FieldShell } from "@/components/shell/field-shell";
+import { redirect } from "next/navigation";
 import { requirePageActor } from "@/lib/auth/guard";
+import { needsAgreement } from "@/lib/queries/agreements";
 
 export default async function FieldLayout({ children }: { children: React.ReactNode }) {
   const actor = await requirePageActor(["volunteer"], "/field");
+  // Until they accept the current recorder agreement (offline, the cached pages still open).
+  if (await needsAgreement(actor)) redirect("/agreement");
   return (
     <FieldShell
       actor={actor}

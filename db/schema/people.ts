@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
 import { boolean, index, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, integer, check } from "drizzle-orm/pg-core";
+import { RECORD_LICENCES } from "../../lib/agreement/licences";
 
 export const roleEnum = pgEnum("role", ["volunteer", "coordinator", "organiser", "partner"]);
 export type Role = (typeof roleEnum.enumValues)[number];
@@ -58,9 +59,8 @@ export const invitations = pgTable(
   ],
 );
 
-/** Licences a network may publish its records under (SPDX identifiers). */
-export const recordLicenceEnum = pgEnum("record_licence", ["CC0-1.0", "CC-BY-4.0", "CC-BY-NC-4.0"]);
-export type RecordLicence = (typeof recordLicenceEnum.enumValues)[number];
+/** Licences a network may publish its records under (SPDX identifiers: lib/agreement/licences.ts). */
+export const recordLicenceEnum = pgEnum("record_licence", RECORD_LICENCES);
 
 /** The recorder agreement, written by an organiser; every change is a new version, never an edit. */
 export const recorderAgreements = pgTable(
