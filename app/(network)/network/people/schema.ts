@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { normaliseRoles, roles } from "@/lib/auth/roles";
+import { MAX_EMAIL_LENGTH, MAX_PERSON_NAME_LENGTH, MIN_PERSON_NAME_LENGTH } from "@/lib/limits/text";
 import { safeText } from "@/lib/validation/fields";
 
 /** One or more roles; repeats dropped, in the usual order. */
@@ -10,8 +11,8 @@ export const roleListSchema = z
   .transform(normaliseRoles);
 
 export const inviteSchema = z.object({
-  name: safeText(120).pipe(z.string().min(2, { message: "Enter the person's name." })),
-  email: z.email({ message: "Enter a valid e-mail address." }).max(320),
+  name: safeText(MAX_PERSON_NAME_LENGTH).pipe(z.string().min(MIN_PERSON_NAME_LENGTH, { message: "Enter the person's name." })),
+  email: z.email({ message: "Enter a valid e-mail address." }).max(MAX_EMAIL_LENGTH),
   roles: roleListSchema,
 });
 export type InviteInput = z.input<typeof inviteSchema>;
