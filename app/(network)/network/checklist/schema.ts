@@ -1,5 +1,4 @@
 import { z } from "zod";
-import type { Role } from "@/lib/auth/roles";
 import { invalid } from "@/lib/errors";
 import { MAX_CHECKLIST_FILE_BYTES, MAX_LIST_ITEMS, MAX_NAME_LENGTH, MAX_TAG_DESCRIPTION_LENGTH, MAX_TAG_LENGTH, MAX_VERNACULAR_LENGTH } from "@/lib/checklist/limits";
 import { AGGREGATE_RANK, TAXON_RANKS } from "@/lib/checklist/ranks";
@@ -81,7 +80,3 @@ export function parseId(raw: string | undefined): string {
   if (!parsed.success) throw invalid({ id: ["That is not a checklist id."] });
   return parsed.data;
 }
-
-/** Reviewers read the checklist (they check records against it); only organisers change it. */
-export const CHECKLIST_READERS = ["organiser", "coordinator"] as const satisfies readonly Role[];
-export const CHECKLIST_WRITERS = ["organiser"] as const satisfies readonly Role[];

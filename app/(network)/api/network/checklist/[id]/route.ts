@@ -1,11 +1,12 @@
+import { REVIEWERS } from "@/lib/auth/roles";
 import { route } from "@/lib/http/route";
 import { checklistEntry, updateEntry } from "@/lib/queries/checklist";
-import { CHECKLIST_READERS, CHECKLIST_WRITERS, entrySchema, parseId } from "../../../../network/checklist/schema";
+import { entrySchema, parseId } from "../../../../network/checklist/schema";
 
-export const GET = route<undefined, undefined, { id: string }>({ roles: CHECKLIST_READERS }, async ({ params }) => ({ entry: await checklistEntry(parseId(params.id)) }));
+export const GET = route<undefined, undefined, { id: string }>({ roles: REVIEWERS }, async ({ params }) => ({ entry: await checklistEntry(parseId(params.id)) }));
 
 /** Edits one entry: every field is sent, as the form holds them. */
-export const PATCH = route<typeof entrySchema, undefined, { id: string }>({ roles: CHECKLIST_WRITERS, body: entrySchema }, async ({ actor, body, params }) => {
+export const PATCH = route<typeof entrySchema, undefined, { id: string }>({ roles: ["organiser"], body: entrySchema }, async ({ actor, body, params }) => {
   const id = parseId(params.id);
   const { changed } = await updateEntry(actor, id, body);
   return { changed, entry: await checklistEntry(id) };

@@ -1,10 +1,10 @@
 import { refusalResponse } from "@/lib/checklist/refusal";
 import { route } from "@/lib/http/route";
 import { importChecklist } from "@/lib/queries/checklist-import";
-import { CHECKLIST_WRITERS, confirmImportSchema } from "../../../../network/checklist/schema";
+import { confirmImportSchema } from "../../../../network/checklist/schema";
 
 /** Imports a previewed checklist file: the same file and the preview's hash. */
-export const POST = route({ roles: CHECKLIST_WRITERS, body: confirmImportSchema, bodyLimit: "checklistFile" }, async ({ actor, body }) => {
+export const POST = route({ roles: ["organiser"], body: confirmImportSchema, bodyLimit: "checklistFile" }, async ({ actor, body }) => {
   try {
     return { imported: await importChecklist(actor, body) };
   } catch (error) {

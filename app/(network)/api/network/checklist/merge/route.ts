@@ -1,6 +1,6 @@
 import { route } from "@/lib/http/route";
 import { mergeEntries } from "@/lib/queries/checklist-merge";
-import { CHECKLIST_WRITERS, mergeSchema } from "../../../../network/checklist/schema";
+import { mergeSchema } from "../../../../network/checklist/schema";
 
 /** Folds one entry into another: { keepId, foldId }. */
-export const POST = route({ roles: CHECKLIST_WRITERS, body: mergeSchema }, async ({ actor, body }) => mergeEntries(actor, body));
+export const POST = route({ roles: ["organiser"], body: mergeSchema }, async ({ actor, body }) => mergeEntries(actor, body));
