@@ -117,7 +117,10 @@ function SectionsView({ coordinates, boundaries, colour, onToggleBoundary }: Pic
   return (
     <>
       {sections.map((s, i) => {
-        const middle = s.coordinates[Math.floor((s.coordinates.length - 1) / 2)]!;
+        // The label sits halfway along the section's middle segment, clear of its boundary points.
+        const k = Math.floor((s.coordinates.length - 2) / 2);
+        const [a, b] = [s.coordinates[k]!, s.coordinates[k + 1]!];
+        const middle: Position = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
         return (
           <Polyline key={`s${i}`} positions={toLatLngs(s.coordinates)} pathOptions={{ color: hex, weight: 6, dashArray: i % 2 ? "10 6" : undefined }} eventHandlers={{ click: toggleNear }}>
             <Tooltip sticky>Section {i + 1}: click the line to add or remove a section boundary at the nearest point</Tooltip>

@@ -15,8 +15,10 @@ export type MapRoute = {
   coordinates: Position[] | null;
   centre?: Position;
   detail?: string;
-  href?: string;
+  /** Faded and dashed (a retired transect). */
   dimmed?: boolean;
+  /** Dashed only (every other section of one route). */
+  dashed?: boolean;
 };
 
 /** Many routes at once, each in its habitat group's colour; a click opens the transect. */
@@ -36,7 +38,7 @@ export default function RoutesMap({ routes, tileUrl, label, onOpen }: { routes: 
         const eventHandlers = onOpen ? { click: () => onOpen(r.id) } : undefined;
         if (r.coordinates) {
           return (
-            <Polyline key={r.id} positions={toLatLngs(r.coordinates)} pathOptions={{ color: colour, weight: 5, opacity: r.dimmed ? 0.45 : 1, dashArray: r.dimmed ? "6 8" : undefined }} eventHandlers={eventHandlers}>
+            <Polyline key={r.id} positions={toLatLngs(r.coordinates)} pathOptions={{ color: colour, weight: 5, opacity: r.dimmed ? 0.45 : 1, dashArray: r.dimmed ? "6 8" : r.dashed ? "10 6" : undefined }} eventHandlers={eventHandlers}>
               {tip}
             </Polyline>
           );

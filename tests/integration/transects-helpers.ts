@@ -5,13 +5,14 @@ import { eq, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { users } from "@/db/schema";
 
-type Handler = (request: Request, context: { params: Promise<any> }) => Promise<Response>;
+type Handler = (request: Request, context: { params: Promise<never> }) => Promise<Response>;
 
 export async function call(handler: Handler, options: { method?: string; body?: unknown; rawBody?: string; params?: Record<string, string>; contentType?: string } = {}) {
   const method = options.method ?? (options.body === undefined && options.rawBody === undefined ? "GET" : "POST");
   const body = options.rawBody ?? (options.body === undefined ? undefined : JSON.stringify(options.body));
   const headers: Record<string, string> = body === undefined ? {} : { "content-type": options.contentType ?? "application/json" };
-  const response = await handler(new Request("http://localhost/api/network/test", { method, body, headers }), { params: Promise.resolve(options.params ?? {}) });
+  const response = await handler(new Request("http://localhost/api/network/test", { method, body, headers }), { params: Promise.resolve(options.params ?? {}) as Promise<never> });
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- answers are read loosely in tests
   return { status: response.status, json: (await response.json()) as Record<string, any> };
 }
 

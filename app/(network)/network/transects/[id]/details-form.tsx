@@ -3,6 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useForm } from "react-hook-form";
+import type { HabitatGroupRow } from "@/lib/queries/habitat-groups";
 import type { TransectDetail } from "@/lib/queries/transects";
 import { ApiError, api, queryKeys } from "../api";
 import { DetailsFields, type DetailName } from "../details-fields";
@@ -12,10 +13,17 @@ import type { z } from "zod";
 
 const names: DetailName[] = ["code", "name", "habitatGroupId", "sensitive", "coastal", "accessNotes"];
 
-/** The transect's details; only the fields changed are sent. */
+/** The transect's details, once the habitat groups are known (a select takes its value from its options). */
 export function DetailsForm({ transect }: { transect: TransectDetail }) {
-  const queryClient = useQueryClient();
   const habitats = useHabitatGroups();
+  if (habitats.isPending) return <p>Loading habitat groups…</p>;
+  if (habitats.error) return <p role="alert" className="font-bold text-rust-700">{habitats.error.message}</p>;
+  return <DetailsFormFields transect={transect} habitats={habitats.data} />;
+}
+
+/** Only the fields changed are sent. */
+function DetailsFormFields({ transect, habitats }: { transect: TransectDetail; habitats: HabitatGroupRow[] }) {
+  const queryClient = useQueryClient();
   const defaults = { code: transect.code, name: transect.name, habitatGroupId: transect.habitatGroupId, sensitive: transect.sensitive, coastal: transect.coastal, accessNotes: transect.accessNotes ?? "" };
   const { register, handleSubmit, setError, reset, formState: { errors, dirtyFields, isDirty } } = useForm<z.input<typeof transectPatchSchema>, unknown, TransectPatch>({
     resolver: zodResolver(transectPatchSchema),
@@ -38,7 +46,7 @@ export function DetailsForm({ transect }: { transect: TransectDetail }) {
   });
   return (
     <form noValidate onSubmit={submit} className="space-y-3">
-      <DetailsFields register={register} errors={errors} habitats={habitats.data ?? []} idPrefix="edit" />
+      <DetailsFields register={register} errors={errors} habitats={habitats} idPrefix="edit" />
       {save.isSuccess && !isDirty && <p role="status" className="font-bold text-lichen-700">Saved.</p>}
       {save.error && <p role="alert" className="font-bold text-rust-700">{save.error.message}</p>}
       <button type="submit" className="btn-primary" disabled={!isDirty || save.isPending}>{save.isPending ? "Saving…" : "Save details"}</button>

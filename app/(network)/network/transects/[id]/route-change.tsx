@@ -50,7 +50,7 @@ export function RouteChange({ transect, tileUrl }: { transect: TransectDetail; t
         <RoutesMap
           tileUrl={tileUrl}
           label={`Map of transect ${transect.code}`}
-          routes={transect.sections.map((s) => ({ id: `${s.number}`, label: `Section ${s.number}`, colour: transect.habitatColour, coordinates: s.coordinates, detail: `${distance(s.lengthMetres)}${s.habitat ? ` · ${s.habitat}` : ""}` }))}
+          routes={transect.sections.map((s) => ({ id: `${s.number}`, label: `Section ${s.number}`, colour: transect.habitatColour, coordinates: s.coordinates, dashed: s.number % 2 === 0, detail: `${distance(s.lengthMetres)}${s.habitat ? ` · ${s.habitat}` : ""}` }))}
         />
         <ol className="grid gap-1 text-sm sm:grid-cols-2">
           {transect.sections.map((s) => (
