@@ -8,10 +8,11 @@ source "$ROOT/scripts/pg-client.sh"
 set +e
 
 # Empties the test database: the project cluster's turnstone_test is made anew; a database named by
-# TEST_DATABASE_URL (one the tests may wipe) loses everything its user owns there.
+# TEST_DATABASE_URL (one its user owns and the tests may wipe) loses its schemas.
 reset_test_database() {
   if [ -n "${TEST_DATABASE_URL:-}" ]; then
-    (use_database_environment && "$(pg_tool psql)" -X -q -v ON_ERROR_STOP=1 -c "drop owned by current_user")
+    (use_database_environment && PGOPTIONS="-c client_min_messages=warning" "$(pg_tool psql)" -X -q -v ON_ERROR_STOP=1 \
+      -c "drop schema if exists drizzle cascade" -c "drop schema if exists public cascade" -c "create schema public")
   else
     recreate_database turnstone_test
   fi
