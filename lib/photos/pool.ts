@@ -25,8 +25,11 @@ export const PHOTO_QUEUE = 4 * PHOTO_THREADS;
 export const PHOTO_SLOTS = PHOTO_THREADS + PHOTO_QUEUE;
 /** What a busy answer asks the phone to wait (its outbox retries 5xx with backoff anyway). */
 export const PHOTO_BUSY_RETRY_SECONDS = 15;
-/** An idle thread ends after this, handing back the memory its last decode grew. */
-const IDLE_THREAD_MS = 60_000;
+/**
+ * An idle thread ends after this, handing back the memory its last decode grew (a new thread
+ * compiles libheif-js again on its first HEIC: about 2 s of CPU).
+ */
+const IDLE_THREAD_MS = 5 * 60_000;
 /**
  * The pool's threads run at a lower CPU priority (nice(2), per thread on Linux, through piscina's
  * optional @napi-rs/nice): on a busy machine a photo waits a little longer, a sync batch does not.
