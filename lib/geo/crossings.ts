@@ -23,9 +23,9 @@ export function segmentsMeet([p1, p2]: Segment, [q1, q2]: Segment): boolean {
 /**
  * Pairs of segment numbers (0-based, i < j) where the line meets itself, neighbours excluded
  * (they share a point by construction), as are the first and last segments of a closed loop.
- * Stops after `limit` pairs.
+ * Stops after `limit` pairs. `stats` counts the pairs it had to test (the grid's work).
  */
-export function selfCrossings(coordinates: Position[], limit = 20): [number, number][] {
+export function selfCrossings(coordinates: Position[], limit = 20, stats?: { pairsTested: number }): [number, number][] {
   const n = coordinates.length - 1;
   if (n < 3) return [];
   let [minX, minY, maxX, maxY] = [Infinity, Infinity, -Infinity, -Infinity];
@@ -63,6 +63,7 @@ export function selfCrossings(coordinates: Position[], limit = 20): [number, num
         const key = i * n + j;
         if (seen.has(key)) continue;
         seen.add(key);
+        if (stats) stats.pairsTested++;
         if (segmentsMeet([coordinates[i]!, coordinates[i + 1]!], [coordinates[j]!, coordinates[j + 1]!])) {
           found.push([i, j]);
           if (found.length >= limit) return found.sort((p, q) => p[0] - q[0] || p[1] - q[1]);

@@ -1,5 +1,6 @@
 // The limits a transect's route is held to. Pure constants: the organiser's pages, the route
 // file parser and the server's checks all read them from here.
+import { SECTIONS } from "../limits/counts";
 
 /** A transect is walked in one go; longer than this is a mistake in the file (the figure). */
 export const MAX_ROUTE_METRES = 50_000;
@@ -13,8 +14,8 @@ export const MAX_ROUTE_FILE_BYTES = 10 * 1024 * 1024;
  */
 export const MAX_ROUTE_POINTS = 20_000;
 
-/** Sections per transect (the transects table's check says the same). */
-export const MAX_SECTIONS = 50;
+/** Sections per transect: the shared range the database's checks also read. */
+export const MAX_SECTIONS = SECTIONS.max;
 
 /**
  * Our choice: section ends this close together are one joint (GPS tracks split into segments
