@@ -64,12 +64,15 @@ export async function mergeEntries(actor: Pick<Actor, "id">, input: { keepId: st
     await tx.delete(species).where(and(eq(species.id, foldId), ne(species.id, keepId)));
 
     const keepAfter = await checklistEntry(keepId, tx);
-    const summary = `Merged ${fold.name} (${foldBefore.vernacularName}) into ${keep.name} (${keepBefore.vernacularName}): ${moved.length} sighting${moved.length === 1 ? "" : "s"} re-pointed; ${fold.name} is now a synonym`;
+    // One row on each name's history, each worded from that entry's side.
+    const sightingsMoved = `${moved.length} sighting${moved.length === 1 ? "" : "s"} re-pointed`;
+    const keepName = `${keep.name} (${keepBefore.vernacularName})`;
+    const foldName = `${fold.name} (${foldBefore.vernacularName})`;
     const before = { kept: summaryOf(keepBefore), foldedIn: summaryOf(foldBefore) };
     const after = { kept: summaryOf(keepAfter), foldedIn: null };
     await logChanges(tx, actor, [
-      { entity: "species", entityId: keepId, action: "merge", summary, before, after },
-      { entity: "species", entityId: foldId, action: "merge", summary, before, after },
+      { entity: "species", entityId: keepId, action: "merge", summary: `${keepName} took in ${foldName} by a merge: ${sightingsMoved}; ${fold.name} is now its synonym`, before, after },
+      { entity: "species", entityId: foldId, action: "merge", summary: `${foldName} was merged into ${keepName}: ${sightingsMoved}; the name is now a synonym of ${keep.name}`, before, after },
     ]);
     return { keptId: keepId, sightingsMoved: moved.length };
   });

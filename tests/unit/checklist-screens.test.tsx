@@ -6,6 +6,8 @@ import { EntryEditor } from "@/components/network/checklist/entry-editor";
 
 // The checklist screens against a fake of their route handlers (fetch), as the organiser uses them.
 vi.mock("next/link", () => ({ default: ({ href, children, ...rest }: { href: string; children: React.ReactNode }) => <a href={href} {...rest}>{children}</a> }));
+const router = vi.hoisted(() => ({ refresh: vi.fn() }));
+vi.mock("next/navigation", () => ({ useRouter: () => router }));
 
 const wrap = (ui: React.ReactElement) => render(<QueryClientProvider client={new QueryClient({ defaultOptions: { queries: { retry: false } } })}>{ui}</QueryClientProvider>);
 type Call = { url: string; method: string; body: unknown };
@@ -23,7 +25,8 @@ const csvFile = (text: string, name = "checklist.csv") => new File([text], name,
 
 afterEach(() => vi.restoreAllMocks());
 
-describe("importing a checklist file", () => {
+// A first render on a busy machine can take seconds (module loading), hence the timeouts.
+describe("importing a checklist file", { timeout: 20_000 }, () => {
   const plan = {
     entries: [
       { line: 2, id: "s1", status: "changed", values: { scientificName: "Aglais io", vernacularName: "Peacock", taxonRank: "species", sensitive: false, activeMonths: [3, 4], tags: [], synonyms: ["Inachis io"], covers: [] }, changes: [{ field: "synonyms", before: [], after: ["Inachis io"] }] },
@@ -78,7 +81,7 @@ describe("importing a checklist file", () => {
   });
 });
 
-describe("editing one entry", () => {
+describe("editing one entry", { timeout: 20_000 }, () => {
   const entry = { id: "11111111-1111-4111-8111-111111111111", scientificName: "Aglais io", vernacularName: "Peacock", taxonRank: "species", sensitive: false, activeMonths: [3, 4, 5], tags: [], synonyms: [], covers: [], coveredBy: [], sightings: 12 };
   const routes = (patch: (body: unknown) => { status: number; json: unknown }) =>
     fakeRoutes((c) => {
@@ -95,6 +98,25 @@ describe("editing one entry", () => {
     fireEvent.click(screen.getByRole("button", { name: "Save changes" }));
     expect(await screen.findByText("Enter the scientific name.")).toBeInTheDocument();
     expect(calls.filter((c) => c.method === "PATCH")).toEqual([]);
+  });
+
+  it("says the entry was saved, and still says so once the saved entry is read back", async () => {
+    let stored = entry;
+    routes((body) => {
+      stored = { ...entry, vernacularName: (body as { vernacularName: string }).vernacularName };
+      return { status: 200, json: { changed: true, entry: stored } };
+    });
+    // The entry route answers with what was stored last.
+    const fetchMock = vi.mocked(globalThis.fetch);
+    const answer = fetchMock.getMockImplementation()!;
+    fetchMock.mockImplementation(async (input, init) => (String(input).endsWith(entry.id) && !init?.method ? new Response(JSON.stringify({ entry: stored }), { status: 200 }) : answer(input, init)));
+    wrap(<EntryEditor id={entry.id} />);
+    fireEvent.change(await screen.findByLabelText("Vernacular name"), { target: { value: "Peacock butterfly" } });
+    fireEvent.click(screen.getByRole("button", { name: "Save changes" }));
+    expect(await screen.findByText("Saved. The change is in the network's history.")).toBeInTheDocument();
+    await waitFor(() => expect(screen.getByLabelText("Vernacular name")).toHaveValue("Peacock butterfly"));
+    await waitFor(() => expect(router.refresh).toHaveBeenCalled());
+    expect(screen.getByText("Saved. The change is in the network's history.")).toBeInTheDocument();
   });
 
   it("sends every field and shows the server's field messages beside the fields", async () => {

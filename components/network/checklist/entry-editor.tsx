@@ -3,6 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
+import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Controller, useForm, useWatch } from "react-hook-form";
 import { entrySchema, type EntryForm } from "@/app/(network)/network/checklist/schema";
@@ -24,25 +25,31 @@ const formOf = (e: ChecklistRow): EntryForm => ({
   covers: e.covers.map((c) => c.id),
 });
 
+type Notice = { ok: boolean; text: string } | null;
+
 export function EntryEditor({ id }: { id: string }) {
+  // Kept here: the form below restarts after a save, and the notice must outlive it.
+  const [notice, setNotice] = useState<Notice>(null);
   const entry = useQuery({ queryKey: checklistKeys.entry(id), queryFn: () => api<{ entry: ChecklistRow }>(`/${id}`) });
   const list = useQuery({ queryKey: checklistKeys.list, queryFn: () => api<{ entries: ChecklistRow[] }>("") });
   const tags = useQuery({ queryKey: checklistKeys.tags, queryFn: () => api<{ tags: TagRow[] }>("/tags") });
   if (entry.error) return <p role="alert" className="font-bold text-rust-700">{entry.error.message}</p>;
   if (!entry.data || !list.data || !tags.data) return <p role="status">Loading the entry…</p>;
   // Keyed by the stored entry, so a saved change restarts the form from what was stored.
-  return <EntryFormView key={JSON.stringify(entry.data.entry)} entry={entry.data.entry} entries={list.data.entries} tags={tags.data.tags} />;
+  return <EntryFormView key={JSON.stringify(entry.data.entry)} entry={entry.data.entry} entries={list.data.entries} tags={tags.data.tags} notice={notice} setNotice={setNotice} />;
 }
 
-function EntryFormView({ entry, entries, tags }: { entry: ChecklistRow; entries: ChecklistRow[]; tags: TagRow[] }) {
+function EntryFormView({ entry, entries, tags, notice, setNotice }: { entry: ChecklistRow; entries: ChecklistRow[]; tags: TagRow[]; notice: Notice; setNotice: (n: Notice) => void }) {
   const queryClient = useQueryClient();
-  const [notice, setNotice] = useState<{ ok: boolean; text: string } | null>(null);
+  const router = useRouter();
   const { register, control, handleSubmit, setError, formState: { errors, isDirty } } = useForm<EntryForm>({ resolver: zodResolver(entrySchema), defaultValues: formOf(entry) });
   const save = useMutation({
     mutationFn: (values: EntryForm) => api<{ changed: boolean; entry: ChecklistRow }>(`/${entry.id}`, { method: "PATCH", body: values }),
     onSuccess: async (result) => {
       setNotice({ ok: true, text: result.changed ? "Saved. The change is in the network's history." : "Nothing had changed." });
       await queryClient.invalidateQueries({ queryKey: checklistKeys.all });
+      // The page's heading is drawn on the server.
+      router.refresh();
     },
     onError: (error) => {
       setNotice({ ok: false, text: error.message });
