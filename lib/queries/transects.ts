@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, count, desc, eq, gt, gte, inArray, max, ne, sql } from "drizzle-orm";
+import { and, asc, count, desc, eq, gt, gte, inArray, max, ne, sql, type SQLWrapper } from "drizzle-orm";
 import { db, type Transaction } from "@/db/client";
 import { habitatGroups, sightings, transectRouteVersions, transectSections, transects, users, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
@@ -167,6 +167,15 @@ export async function routeVersionOn(transectId: string, date: string) {
 export async function sectionCountOn(transectId: string, date: string): Promise<number | null> {
   const spans = (await versionSpansOf([transectId])).get(transectId) ?? [];
   return versionOn(spans, date)?.sectionCount ?? null;
+}
+
+/**
+ * The same rule as sectionCountOn in SQL, for statements that check many walks at once (sync's
+ * stored visits): the latest version valid on or before the date, else the first version.
+ */
+export function sectionCountOnSql(transectId: SQLWrapper, date: SQLWrapper) {
+  return sql<number>`(select v.section_count from ${transectRouteVersions} v where v.transect_id = ${transectId}
+    order by case when v.valid_from <= ${date} then 0 else 1 end, case when v.valid_from <= ${date} then v.valid_from end desc, v.valid_from limit 1)`;
 }
 
 /** Whether the transect's route changed between two seasons (either order): comparisons flag it. */

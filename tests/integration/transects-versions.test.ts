@@ -1,10 +1,10 @@
 import { randomUUID } from "node:crypto";
-import { asc, eq } from "drizzle-orm";
+import { asc, eq, sql } from "drizzle-orm";
 import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { db } from "@/db/client";
 import { networkChanges, sightings, species, transectRouteVersions, transects, visits } from "@/db/schema";
 import { latestRecordDate } from "@/lib/validation/fields";
-import { routeChangedBetween, routesChangedBetween, routeVersionOn, sectionCountOn, versionSpansOf } from "@/lib/queries/transects";
+import { routeChangedBetween, routesChangedBetween, routeVersionOn, sectionCountOn, sectionCountOnSql, versionSpansOf } from "@/lib/queries/transects";
 import { resetToDemo } from "./support/db";
 import { call, demo, details, habitatId, tableCounts, userId } from "./transects-helpers";
 
@@ -62,6 +62,12 @@ describe("route versions", () => {
     // Walks from before Turnstone (imported seasons) use the first route.
     expect(await sectionCountOn(id, "2019-06-01")).toBe(5);
     expect((await versionSpansOf([id])).get(id)?.map((v) => v.version).sort()).toEqual([1, 2]);
+    // The SQL form gives every walk the same answer.
+    const [inSql] = await db().execute<{ today: number; tomorrow: number; early: number }>(sql`select
+      ${sectionCountOnSql(sql`${id}::uuid`, sql`${today}::date`)} as today,
+      ${sectionCountOnSql(sql`${id}::uuid`, sql`${tomorrow}::date`)} as tomorrow,
+      ${sectionCountOnSql(sql`${id}::uuid`, sql`'2019-06-01'::date`)} as early`);
+    expect(inSql).toEqual({ today: 5, tomorrow: 3, early: 5 });
 
     const log = await db().select().from(networkChanges).where(eq(networkChanges.entityId, id)).orderBy(asc(networkChanges.createdAt));
     expect(log.map((l) => l.action)).toEqual(["create", "new-route"]);
