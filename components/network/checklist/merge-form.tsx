@@ -68,7 +68,7 @@ export function MergeForm({ keepId }: { keepId?: string }) {
           <p>
             {plural(fold.sightings, "sighting")} of <i>{fold.scientificName}</i> will name <i>{keep.scientificName}</i> instead
             (which has {plural(keep.sightings, "sighting")} now). <i>{fold.scientificName}</i>
-            {fold.synonyms.length > 0 && <> and its synonyms ({fold.synonyms.join(", ")})</>} will become synonyms of <i>{keep.scientificName}</i>;
+            {fold.synonyms.length > 0 ? <> and its synonyms ({fold.synonyms.join(", ")}) will become synonyms</> : " will become a synonym"} of <i>{keep.scientificName}</i>;
             its tags join the kept entry&apos;s{fold.coveredBy.length > 0 && <>, and aggregates that covered it will cover <i>{keep.scientificName}</i></>}.
             The merge is kept in both names&apos; history. It cannot be undone.
           </p>
