@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, lt, or, sql, type SQL } from "drizzle-orm";
+import { and, desc, eq, sql, type SQL } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
 import { networkChanges, users } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
@@ -17,7 +17,13 @@ export type ChangeEntry = {
 
 /** Writes change-log rows inside the caller's transaction, so a change and its record stand or fall together. */
 export async function logChanges(tx: Database | Transaction, actor: Pick<Actor, "id">, entries: ChangeEntry[]): Promise<void> {
-  if (entries.length === 0) return;
+  // In slices: one INSERT may carry at most 65,535 parameters (PostgreSQL's wire protocol).
+  for (let start = 0; start < entries.length; start += LOG_SLICE) await insertSlice(tx, actor, entries.slice(start, start + LOG_SLICE));
+}
+
+const LOG_SLICE = 500;
+
+async function insertSlice(tx: Database | Transaction, actor: Pick<Actor, "id">, entries: ChangeEntry[]): Promise<void> {
   await tx.insert(networkChanges).values(
     entries.map((e) => ({
       actorId: actor.id,
@@ -41,15 +47,16 @@ export type ChangePage = {
 
 const PAGE = 50;
 
-function cursorOf(row: { createdAt: Date; id: string }): string {
-  return Buffer.from(`${row.createdAt.toISOString()}|${row.id}`).toString("base64url");
+// The cursor carries PostgreSQL's own text of the timestamp: a JavaScript Date would drop its
+// microseconds, and rows written in one transaction share one timestamp anyway.
+function cursorOf(row: { at: string; id: string }): string {
+  return Buffer.from(`${row.at}|${row.id}`).toString("base64url");
 }
 
-function parseCursor(cursor: string | undefined): { at: Date; id: string } | null {
+function parseCursor(cursor: string | undefined): { at: string; id: string } | null {
   if (!cursor) return null;
   const [at, id] = Buffer.from(cursor, "base64url").toString().split("|");
-  const date = new Date(at ?? "");
-  return id && !Number.isNaN(date.getTime()) && /^[0-9a-f-]{36}$/i.test(id) ? { at: date, id } : null;
+  return at && id && !Number.isNaN(Date.parse(at)) && /^[0-9a-f-]{36}$/i.test(id) ? { at, id } : null;
 }
 
 /** Newest first, keyset-paged (an index scan however long the log grows). */
@@ -60,12 +67,13 @@ export async function listChanges(filter: { entity?: NetworkEntity; entityId?: s
   if (filter.entityId) where.push(eq(networkChanges.entityId, filter.entityId));
   const cursor = parseCursor(filter.after);
   if (cursor) {
-    where.push(or(lt(networkChanges.createdAt, cursor.at), and(eq(networkChanges.createdAt, cursor.at), lt(networkChanges.id, cursor.id)))!);
+    where.push(sql`(${networkChanges.createdAt}, ${networkChanges.id}) < (${cursor.at}::timestamptz, ${cursor.id}::uuid)`);
   }
   const rows = await db()
     .select({
       id: networkChanges.id,
       createdAt: networkChanges.createdAt,
+      exactAt: sql<string>`${networkChanges.createdAt}::text`,
       actorName: users.name,
       entity: networkChanges.entity,
       entityId: networkChanges.entityId,
@@ -81,7 +89,7 @@ export async function listChanges(filter: { entity?: NetworkEntity; entityId?: s
     .limit(limit + 1);
   const page = rows.slice(0, limit);
   return {
-    rows: page.map(({ createdAt, ...r }) => ({ ...r, at: createdAt.toISOString() })),
-    next: rows.length > limit ? cursorOf(page[page.length - 1]!) : null,
+    rows: page.map(({ createdAt, exactAt: _exact, ...r }) => ({ ...r, at: createdAt.toISOString() })),
+    next: rows.length > limit ? cursorOf({ at: page[page.length - 1]!.exactAt, id: page[page.length - 1]!.id }) : null,
   };
 }
