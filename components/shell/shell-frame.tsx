@@ -18,7 +18,7 @@ export type ShellLink = ComponentType<{ href: string; className?: string; childr
 export function ShellFrame({ actor, area, nav, link: NavLink, children }: { actor: Actor; area?: string; nav: NavItem[]; link: ShellLink; children: ReactNode }) {
   return (
     <div className="flex min-h-dvh flex-col">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:rounded focus:bg-white focus:p-2">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:inline-flex focus:min-h-tap focus:min-w-tap focus:items-center focus:rounded focus:bg-white focus:p-2">
         Skip to content
       </a>
       <header className="border-b border-shingle-200 bg-white">
