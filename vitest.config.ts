@@ -20,6 +20,8 @@ export default defineConfig({
           environment: "jsdom",
           include: ["tests/unit/**/*.test.tsx"],
           setupFiles: ["tests/support/jsdom-setup.ts"],
+          // jsdom renders with dexie over fake-indexeddb: on two busy cores a screen can take seconds.
+          testTimeout: 20_000,
         },
       },
       {
