@@ -11,7 +11,7 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", environment: "node", include: ["tests/unit/**/*.test.ts"] },
+        test: { name: "unit", environment: "node", include: ["tests/unit/**/*.test.ts"], testTimeout: 20_000 },
       },
       {
         extends: true,
