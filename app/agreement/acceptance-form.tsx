@@ -39,7 +39,7 @@ export function AcceptanceForm({ version, previous }: { version: number; previou
       const result = await acceptAgreementAction({ version, publishName, newsletter });
       if (result.ok) {
         // A document load: the field pages come from the service worker's cache when offline.
-        window.location.assign("/field");
+        window.location.assign("/field"); // eslint-disable-line @next/next/no-location-assign-relative-destination -- field pages must be document loads the service worker can answer offline
         return;
       }
       setErrors(Object.fromEntries(Object.entries(result.fieldErrors ?? {}).map(([k, v]) => [k, v[0] ?? ""])));
