@@ -4,7 +4,7 @@ import { db, type Database, type Transaction } from "@/db/client";
 import { species, speciesAggregateMembers, speciesMerges, speciesSynonyms } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { CHECKLIST_COLUMNS, type ChecklistColumn } from "@/lib/checklist/columns";
-import { planChecklistImport } from "@/lib/checklist/plan";
+import { planChecklistImport, type SnapshotEntry } from "@/lib/checklist/plan";
 import type { TaxonRank } from "@/lib/checklist/ranks";
 import { invalid, notFound } from "@/lib/errors";
 import { applyPlan } from "./checklist-apply";
@@ -95,16 +95,8 @@ export async function mergedSpeciesTargets(ids: readonly string[], tx: Database 
   return new Map(rows.map((r) => [r.from, r.into]));
 }
 
-export type EntryInput = {
-  scientificName: string;
-  vernacularName: string;
-  taxonRank: TaxonRank;
-  sensitive: boolean;
-  activeMonths: number[];
-  tagIds: string[];
-  synonyms: string[];
-  covers: string[];
-};
+/** An edit of one entry: its values, with the species it covers by scientific name. */
+export type EntryInput = Omit<SnapshotEntry, "id" | "memberIds"> & { covers: string[] };
 
 /** The edit form's field for each of the planner's columns. */
 const fieldOf: Record<ChecklistColumn, keyof EntryInput> = {

@@ -114,13 +114,7 @@ export async function getTransect(actor: Actor, id: string) {
   const exact = route.type === "LineString";
   return {
     id: t.id,
-    code: t.code,
-    name: t.name,
-    habitatGroupId: t.habitatGroupId,
-    sensitive: t.sensitive,
-    coastal: t.coastal,
-    accessNotes: t.accessNotes,
-    active: t.active,
+    ...detailsOf(t),
     retiredAt: t.retiredAt?.toISOString() ?? null,
     lengthMetres: t.lengthMetres,
     sectionCount: t.sectionCount,
