@@ -1,40 +1,5 @@
-// The organiser pages' calls to our route handlers (used by react-query): JSON in, JSON out, and
-// our error answers ({ error: { code, message, fields } }) as an ApiError the forms can show.
-
-export class ApiError extends Error {
-  constructor(
-    readonly status: number,
-    message: string,
-    readonly fields: Record<string, string[]> = {},
-  ) {
-    super(message);
-    this.name = "ApiError";
-  }
-}
-
-export async function api<T>(url: string, init: { method?: string; body?: unknown } = {}): Promise<T> {
-  let response: Response;
-  try {
-    response = await fetch(url, {
-      method: init.method ?? (init.body === undefined ? "GET" : "POST"),
-      headers: init.body === undefined ? undefined : { "content-type": "application/json" },
-      body: init.body === undefined ? undefined : JSON.stringify(init.body),
-    });
-  } catch {
-    throw new ApiError(0, "The server could not be reached. Check the connection and try again.");
-  }
-  const json = (await response.json().catch(() => null)) as (T & { error?: { message?: string; fields?: Record<string, string[]> } }) | null;
-  if (!response.ok) throw new ApiError(response.status, json?.error?.message ?? `The server answered ${response.status}.`, json?.error?.fields ?? {});
-  return json as T;
-}
-
-/** Field messages under `prefix` (e.g. every "route…" key), flattened for one place on the form. */
-export function messagesUnder(error: unknown, prefix: string): string[] {
-  if (!(error instanceof ApiError)) return [];
-  return Object.entries(error.fields)
-    .filter(([key]) => key === prefix || key.startsWith(`${prefix}.`))
-    .flatMap(([, messages]) => messages);
-}
+// The transect and habitat pages' query keys; the calls themselves are the organiser pages' shared client.
+export { api, ApiError, messagesUnder } from "@/components/network/api";
 
 export const queryKeys = {
   transects: ["network", "transects"] as const,
