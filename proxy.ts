@@ -34,11 +34,12 @@ function renderWithPolicy(request: NextRequest): NextResponse {
   return response;
 }
 
-/** What Auth.js's proxy does for a stranger when authorized() says no. */
+/** A stranger goes to sign-in with the page asked for as `from` (lib/auth/return-path.ts keeps it only on this site). */
 function toSignIn(request: NextRequest): NextResponse {
   const signIn = request.nextUrl.clone();
   signIn.pathname = authConfig.pages.signIn;
-  signIn.searchParams.set("callbackUrl", request.nextUrl.href);
+  signIn.search = "";
+  signIn.searchParams.set("from", `${request.nextUrl.pathname}${request.nextUrl.search}`);
   return NextResponse.redirect(signIn);
 }
 

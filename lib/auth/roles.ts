@@ -39,7 +39,7 @@ export const REVIEWERS = ["coordinator", "organiser"] as const satisfies readonl
 
 export type Area = { home: string; label: string; roles: readonly Role[] };
 
-/** Page areas and the roles each admits, in the order sign-in prefers; the proxy and the server guard both read this. */
+/** Page areas and the roles each admits, in the order sign-in prefers (homeFor, rolesForPath and the area switcher read this; pages decide with requirePageActor(roles)). */
 export const areas: readonly Area[] = [
   { home: "/network", label: "Network", roles: ["organiser"] },
   { home: "/review", label: "Record checking", roles: REVIEWERS },
