@@ -1,9 +1,9 @@
 import { sql } from "drizzle-orm";
-import { boolean, check, date, doublePrecision, index, integer, pgEnum, pgTable, smallint, text, time, timestamp, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, date, doublePrecision, index, integer, pgEnum, pgTable, smallint, text, time, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SECTIONS, SIGHTING_COUNT, TEMPERATURE_C } from "../../lib/limits/counts";
 import { literal } from "./check-sql";
 import { users } from "./people";
-import { seasons, transects } from "./sites";
+import { seasonImports, seasons, transects } from "./sites";
 import { species } from "./taxa";
 
 export const skyEnum = pgEnum("sky", ["clear", "mostly_sunny", "broken_cloud", "mostly_cloudy", "overcast"]);
@@ -27,6 +27,10 @@ export const visits = pgTable(
     // Absences are inferred only from complete lists.
     completeList: boolean("complete_list").notNull().default(false),
     notes: text("notes"),
+    // Set when a reviewer or organiser typed the walk in for the volunteer (a paper record).
+    enteredById: uuid("entered_by_id").references(() => users.id, { onDelete: "restrict" }),
+    // Set when the walk came from an earlier season's spreadsheet.
+    importId: uuid("import_id").references(() => seasonImports.id, { onDelete: "restrict" }),
     submittedAt: timestamp("submitted_at", { withTimezone: true }),
     clientUpdatedAt: timestamp("client_updated_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -36,10 +40,33 @@ export const visits = pgTable(
     index("visits_transect_date_idx").on(t.transectId, t.visitDate),
     index("visits_volunteer_idx").on(t.volunteerId, t.visitDate),
     index("visits_season_idx").on(t.seasonId),
+    index("visits_import_idx").on(t.importId),
     check("visits_wind_beaufort", sql`${t.windBeaufort} is null or ${t.windBeaufort} between ${literal(BEAUFORT_FORCE.min)} and ${literal(BEAUFORT_FORCE.max)}`),
     check("visits_cloud_percent", sql`${t.cloudCoverPercent} is null or ${t.cloudCoverPercent} between ${literal(CLOUD_COVER_PERCENT.min)} and ${literal(CLOUD_COVER_PERCENT.max)}`),
     check("visits_temperature_plausible", sql`${t.temperatureC} is null or ${t.temperatureC} between ${literal(TEMPERATURE_C.min)} and ${literal(TEMPERATURE_C.max)}`),
     check("visits_times_ordered", sql`${t.endTime} is null or ${t.endTime} >= ${t.startTime}`),
+  ],
+);
+
+/**
+ * "Not walked this week because of the weather", reported from the field home (offline too, so the
+ * id comes from the phone like a visit's). One per volunteer, transect and week (Monday).
+ */
+export const weatherMisses = pgTable(
+  "weather_misses",
+  {
+    id: uuid("id").primaryKey(),
+    transectId: uuid("transect_id").notNull().references(() => transects.id, { onDelete: "restrict" }),
+    volunteerId: uuid("volunteer_id").notNull().references(() => users.id, { onDelete: "restrict" }),
+    seasonId: uuid("season_id").notNull().references(() => seasons.id, { onDelete: "restrict" }),
+    weekStart: date("week_start").notNull(),
+    reportedOn: date("reported_on").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("weather_misses_week_idx").on(t.transectId, t.volunteerId, t.weekStart),
+    index("weather_misses_season_idx").on(t.seasonId, t.transectId),
+    check("weather_misses_monday", sql`extract(isodow from ${t.weekStart}) = 1`),
   ],
 );
 

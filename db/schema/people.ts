@@ -1,6 +1,9 @@
 import { sql } from "drizzle-orm";
 import { boolean, index, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, integer, check } from "drizzle-orm/pg-core";
 import { RECORD_LICENCES } from "../../lib/agreement/licences";
+import { BEAUFORT_FORCE } from "../../lib/limits/counts";
+import { DEFAULT_SEASON_GRACE_DAYS, SEASON_GRACE_DAYS } from "../../lib/limits/seasons";
+import { literal } from "./check-sql";
 
 export const roleEnum = pgEnum("role", ["volunteer", "coordinator", "organiser", "partner"]);
 export type Role = (typeof roleEnum.enumValues)[number];
@@ -135,10 +138,13 @@ export const networkSettings = pgTable(
     earliestStartTime: text("earliest_start_time"),
     latestStartTime: text("latest_start_time"),
     contactEmail: text("contact_email"),
+    // Days after a season closes during which walks may still be entered and checked.
+    seasonGraceDays: integer("season_grace_days").notNull().default(DEFAULT_SEASON_GRACE_DAYS),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     check("network_settings_singleton", sql`${t.id} = 1`),
-    check("network_settings_wind", sql`${t.maxWindBeaufort} is null or ${t.maxWindBeaufort} between 0 and 12`),
+    check("network_settings_wind", sql`${t.maxWindBeaufort} is null or ${t.maxWindBeaufort} between ${literal(BEAUFORT_FORCE.min)} and ${literal(BEAUFORT_FORCE.max)}`),
+    check("network_settings_grace_days", sql`${t.seasonGraceDays} between ${literal(SEASON_GRACE_DAYS.min)} and ${literal(SEASON_GRACE_DAYS.max)}`),
   ],
 );

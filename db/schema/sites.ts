@@ -110,12 +110,19 @@ export const seasons = pgTable(
     minVisits: integer("min_visits").notNull().default(1),
     // The visits each volunteer is asked to make per transect (shown on the field home).
     targetVisits: integer("target_visits").notNull().default(6),
+    openedAt: timestamp("opened_at", { withTimezone: true }),
+    // Closing starts the grace period (network_settings.season_grace_days); after it the
+    // season's records are frozen for analysis (lib/seasons/rules.ts).
+    closedAt: timestamp("closed_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     check("seasons_dates_ordered", sql`${t.endsOn} >= ${t.startsOn}`),
     check("seasons_min_visits", sql`${t.minVisits} >= 1`),
     check("seasons_target_visits", sql`${t.targetVisits} >= 1`),
+    check("seasons_closed_has_date", sql`(${t.status} = 'closed') = (${t.closedAt} is not null)`),
+    // No two seasons overlap: an exclusion constraint on daterange(starts_on, ends_on, '[]')
+    // added by hand in drizzle/0006 (drizzle-kit does not model EXCLUDE).
   ],
 );
 
@@ -129,4 +136,26 @@ export const transectAssignments = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("transect_assignments_pair_idx").on(t.transectId, t.userId), index("transect_assignments_user_idx").on(t.userId)],
+);
+
+export const importStatusEnum = pgEnum("import_record_status", ["accepted", "pending"]);
+
+/** One earlier season brought in from a walks file and a sightings file (lib/import). */
+export const seasonImports = pgTable(
+  "season_imports",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    seasonId: uuid("season_id").notNull().references(() => seasons.id, { onDelete: "restrict" }),
+    // What the imported sightings were stored as: accepted (checked elsewhere) or waiting.
+    recordStatus: importStatusEnum("record_status").notNull(),
+    walksFileName: text("walks_file_name").notNull(),
+    sightingsFileName: text("sightings_file_name").notNull(),
+    // sha-256 of both files: the confirm step writes only what the preview showed.
+    contentHash: text("content_hash").notNull(),
+    walks: integer("walks").notNull(),
+    sightings: integer("sightings").notNull(),
+    createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("season_imports_season_idx").on(t.seasonId), check("season_imports_counts", sql`${t.walks} >= 0 and ${t.sightings} >= 0`)],
 );

@@ -110,7 +110,18 @@ export async function seedDemo(database: Database, passwordHash: string): Promis
 
     const seasonRows = await tx
       .insert(t.seasons)
-      .values(seasonsDef.map((s) => ({ name: s.name, startsOn: s.startsOn, endsOn: s.endsOn, status: s.status, minVisits: 3, targetVisits: 6 })))
+      .values(
+        seasonsDef.map((s) => ({
+          name: s.name,
+          startsOn: s.startsOn,
+          endsOn: s.endsOn,
+          status: s.status,
+          openedAt: new Date(`${s.startsOn}T00:00:00Z`),
+          closedAt: s.status === "closed" ? new Date(`${s.endsOn}T18:00:00Z`) : null,
+          minVisits: 3,
+          targetVisits: 6,
+        })),
+      )
       .returning();
 
     const visitRows: (typeof t.visits.$inferInsert)[] = [];
