@@ -1,9 +1,10 @@
 import { z } from "zod";
+import { MAX_INVITATION_TOKEN_LENGTH, MAX_PASSWORD_LENGTH, MIN_INVITATION_TOKEN_LENGTH, MIN_PASSWORD_LENGTH } from "@/lib/limits/text";
 
 export const acceptSchema = z
   .object({
-    token: z.string().min(20).max(200),
-    password: z.string().min(10, { message: "Use at least 10 characters." }).max(200),
+    token: z.string().min(MIN_INVITATION_TOKEN_LENGTH).max(MAX_INVITATION_TOKEN_LENGTH),
+    password: z.string().min(MIN_PASSWORD_LENGTH, { message: `Use at least ${MIN_PASSWORD_LENGTH} characters.` }).max(MAX_PASSWORD_LENGTH),
     confirm: z.string(),
   })
   .refine((v) => v.password === v.confirm, { message: "The two passwords differ.", path: ["confirm"] });

@@ -2,9 +2,8 @@
 
 import { useMutation } from "@tanstack/react-query";
 import { useState } from "react";
+import { MAX_REPLY_LENGTH } from "@/lib/limits/text";
 import type { RecordMessage } from "@/lib/offline/records-copy";
-
-const REPLY_MAX = 1000; // the server's limit (app/(field)/api/field/records/reply/schema.ts)
 
 const when = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" });
 
@@ -55,7 +54,7 @@ export function ReplyForm({ sightingId, onSent }: { sightingId: string; onSent: 
   return (
     <form className="mt-2 space-y-2" onSubmit={(e) => { e.preventDefault(); if (!reply.isPending) reply.mutate(); }}>
       <label htmlFor={`reply-${sightingId}`} className="field-label">Your answer</label>
-      <textarea id={`reply-${sightingId}`} rows={2} maxLength={REPLY_MAX} className="field-input" value={message} onChange={(e) => setMessage(e.target.value)} required />
+      <textarea id={`reply-${sightingId}`} rows={2} maxLength={MAX_REPLY_LENGTH} className="field-input" value={message} onChange={(e) => setMessage(e.target.value)} required />
       {reply.isError && <p role="alert" className="field-error">{(reply.error as Error).message}</p>}
       <button type="submit" className="btn-quiet min-w-tap" disabled={reply.isPending || message.trim().length === 0}>
         {reply.isPending ? "Sending…" : "Send answer"}

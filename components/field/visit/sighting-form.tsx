@@ -2,6 +2,7 @@
 
 import { useMemo, useRef, useState } from "react";
 import { searchSpecies, type ChecklistEntry } from "@/lib/field/species-search";
+import { MAX_SIGHTING_NOTE_LENGTH } from "@/lib/limits/text";
 import { phoneStore, type LocalSighting } from "@/lib/offline/phone-store";
 import { saveSightingWithPhotos } from "@/lib/offline/records";
 import { Stepper } from "../stepper";
@@ -135,7 +136,7 @@ export function SightingForm({
       </div>
       <div>
         <label htmlFor="sighting-note" className="field-label">Note (optional)</label>
-        <textarea id="sighting-note" rows={2} maxLength={1000} className="field-input" value={note} onChange={(e) => setNote(e.target.value)} />
+        <textarea id="sighting-note" rows={2} maxLength={MAX_SIGHTING_NOTE_LENGTH} className="field-input" value={note} onChange={(e) => setNote(e.target.value)} />
       </div>
       <div className="flex flex-wrap items-center gap-2">
         <button type="button" className="btn-quiet min-w-tap" onClick={locate} disabled={locating}>{locating ? "Finding position…" : position ? "Update position" : "Add my position"}</button>
