@@ -2,6 +2,7 @@
 // in their route() options (`bodyLimit: "syncBatch"`; lib/http/route.ts); a body past its cap
 // stops being read and is answered 413 (lib/http/read-body.ts). Relative imports only: next.config.ts
 // reads this file at build time, where the "@/" alias does not resolve.
+import { MAX_IMPORT_FILE_BYTES } from "../import/limits";
 import { MAX_SYNC_BODY_BYTES } from "../sync/protocol";
 
 export const requestBodyLimits = {
@@ -22,6 +23,12 @@ export const requestBodyLimits = {
   /** A route file (at most 10 MB: MAX_ROUTE_FILE_BYTES in lib/geo/limits.ts) sent as a JSON string, which escaping can at most double. */
   routeFile: 2 * 10 * 1024 * 1024 + 64 * 1024,
   /** A checklist CSV (at most 10 MB: MAX_CHECKLIST_FILE_BYTES in lib/checklist/limits.ts) sent as a JSON string, which escaping can at most double. */ checklistFile: 2 * 10 * 1024 * 1024 + 64 * 1024,
+  /**
+   * An earlier season's walks and sightings files (each at most MAX_IMPORT_FILE_BYTES, lib/import/limits.ts) in
+   * one multipart form, with room for the form's other fields and boundaries; a single file over its own cap
+   * is answered 413 by the import's routes.
+   */
+  seasonImport: 2 * MAX_IMPORT_FILE_BYTES + 64 * 1024,
 } as const;
 
 export type RequestBodyLimit = keyof typeof requestBodyLimits;
