@@ -1,6 +1,6 @@
 import "server-only";
 import { createHash, randomUUID } from "node:crypto";
-import { eq, isNull, sql } from "drizzle-orm";
+import { desc, eq, isNull, sql } from "drizzle-orm";
 import { db, type Database, type Transaction } from "@/db/client";
 import { seasonImports, seasons, sightings, speciesMerges, transectRouteVersions, transects, users, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
@@ -194,3 +194,24 @@ export function importedFromText(row: { walksFileName: string; createdAt: Date }
   return `imported from ${row.walksFileName} on ${row.createdAt.toISOString().slice(0, 10)}`;
 }
 
+
+/** Earlier imports, newest first, for the import page. */
+export function listSeasonImports() {
+  return db()
+    .select({
+      id: seasonImports.id,
+      season: seasons.name,
+      recordStatus: seasonImports.recordStatus,
+      walksFileName: seasonImports.walksFileName,
+      sightingsFileName: seasonImports.sightingsFileName,
+      walks: seasonImports.walks,
+      sightings: seasonImports.sightings,
+      createdAt: seasonImports.createdAt,
+      by: users.name,
+    })
+    .from(seasonImports)
+    .innerJoin(seasons, eq(seasons.id, seasonImports.seasonId))
+    .leftJoin(users, eq(users.id, seasonImports.createdById))
+    .orderBy(desc(seasonImports.createdAt))
+    .limit(50);
+}
