@@ -36,9 +36,10 @@ const asOfText = (iso: string) => new Date(iso).toLocaleString(undefined, { date
 /**
  * The volunteer's visits on this phone not yet sent, then their sent visits with each record's
  * review status and the checkers' questions. The last copy loaded is kept on the phone and shown,
- * with its age, when there is no signal.
+ * with its age, when there is no signal. `sources` says how walks not sent from a phone came
+ * (visit id → "recorded by …, entered by …" or "imported from …").
  */
-export function MyRecords({ volunteerId }: { volunteerId: string }) {
+export function MyRecords({ volunteerId, sources = {} }: { volunteerId: string; sources?: Record<string, string> }) {
   const client = useQueryClient();
   const queryKey = ["my-records", volunteerId];
   const saved = useLive(() => savedRecordsCopy(volunteerId), [volunteerId]);
@@ -81,6 +82,7 @@ export function MyRecords({ volunteerId }: { volunteerId: string }) {
         {shown?.visits.map((v) => (
           <li key={v.id} className="card">
             <h2 className="font-bold">{v.visitDate} · {v.transectCode} {v.transectName}</h2>
+            {sources[v.id] && <p className="text-sm text-shingle-600" data-testid="walk-source">{sources[v.id]}</p>}
             <ul className="mt-2 divide-y divide-shingle-100">
               {v.sightings.map((s) => (
                 <li key={s.id} className="py-2" data-testid="record-sighting">

@@ -11,6 +11,7 @@ import { env } from "@/lib/env";
 import { conflict, invalid, notFound } from "@/lib/errors";
 import { enqueueEmails } from "@/lib/mail/queue";
 import { logChange } from "./change-log";
+import { walkSourceColumns } from "./person-walks";
 import { currentSeason } from "./seasons";
 
 const INVITATION_DAYS = 14;
@@ -68,6 +69,7 @@ export async function personDetail(id: string) {
             completeList: visits.completeList,
             sightings: sql<number>`count(${sightings.id})`.mapWith(Number),
             waiting: sql<number>`count(${sightings.id}) filter (where ${sightings.status} in ('pending', 'queried'))`.mapWith(Number),
+            ...walkSourceColumns,
           })
           .from(visits)
           .innerJoin(transects, eq(transects.id, visits.transectId))

@@ -20,6 +20,7 @@ import { conflict, invalid, notFound } from "@/lib/errors";
 import { asJsonText, wholePattern, withoutName } from "@/lib/people/erasure-text";
 import { acceptancesOf } from "./agreements";
 import { logChange } from "./change-log";
+import { walkSourceColumns } from "./person-walks";
 import { keepAnOrganiser, lockOrganisers } from "./people";
 
 // A person's own data, as European volunteers expect (GDPR Art. 15 access and Art. 17 erasure):
@@ -68,6 +69,7 @@ export async function personalData(userId: string) {
         completeList: visits.completeList,
         notes: visits.notes,
         submittedAt: visits.submittedAt,
+        ...walkSourceColumns,
       })
       .from(visits)
       .innerJoin(transects, eq(transects.id, visits.transectId))

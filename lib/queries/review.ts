@@ -2,6 +2,7 @@ import "server-only";
 import { desc, eq, inArray, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { photos, sightings, species, transects, users, visits } from "@/db/schema";
+import { walkSourceColumns } from "./person-walks";
 
 /** Records waiting for a checker, newest first, with the reasons they deserve a look. */
 export async function reviewQueue(limit = 50) {
@@ -18,6 +19,7 @@ export async function reviewQueue(limit = 50) {
       visitDate: visits.visitDate,
       transectCode: transects.code,
       recorder: users.name,
+      ...walkSourceColumns,
       photoCount: sql<number>`(select count(*) from ${photos} where ${photos.sightingId} = ${sightings.id})`.mapWith(Number),
     })
     .from(sightings)

@@ -27,7 +27,7 @@ type Body = { error?: { code: string; message: string; problems?: { file: string
 
 let seasonId = "";
 
-function form(walks: string | Uint8Array, sightingsFile: string | Uint8Array, extra: Record<string, string> = {}) {
+function form(walks: string | Uint8Array<ArrayBuffer>, sightingsFile: string | Uint8Array<ArrayBuffer>, extra: Record<string, string> = {}) {
   const f = new FormData();
   f.set("seasonId", seasonId);
   f.set("recordStatus", "accepted");

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { requirePageActor } from "@/lib/auth/guard";
 import { REVIEWERS } from "@/lib/auth/roles";
+import { walkSourceText } from "@/lib/import/walk-source";
 import { reviewCounts, reviewQueue } from "@/lib/queries/review";
 
 export const metadata: Metadata = { title: "Records to check" };
@@ -43,7 +44,7 @@ export default async function ReviewHome() {
                     <td className="p-2 font-mono">{r.transectCode}</td>
                     <td className="p-2">{r.vernacularName} <i className="text-shingle-600">{r.scientificName}</i></td>
                     <td className="p-2">{r.count}</td>
-                    <td className="p-2">{r.recorder}</td>
+                    <td className="p-2">{r.recorder}{walkSourceText({ ...r, recorder: null }) && <span className="block text-sm text-shingle-600">{walkSourceText({ ...r, recorder: null })}</span>}</td>
                     <td className="p-2 text-sm">{r.flags.join(", ") || "—"}</td>
                   </tr>
                 ))}

@@ -3,6 +3,7 @@
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { roleLabel } from "@/lib/auth/roles";
+import { walkSourceText } from "@/lib/import/walk-source";
 import { api, peopleKeys, type PersonAnswer } from "../people-api";
 import { AssignmentsPanel } from "./assignments-panel";
 import { ErasurePanel } from "./erasure-panel";
@@ -36,6 +37,7 @@ export function PersonEditor({ id }: { id: string }) {
                 <th scope="col" className="p-2">Sightings</th>
                 <th scope="col" className="p-2">Waiting for review</th>
                 <th scope="col" className="p-2">Every species recorded</th>
+                <th scope="col" className="p-2">Entered by / imported</th>
               </tr>
             </thead>
             <tbody>
@@ -46,6 +48,7 @@ export function PersonEditor({ id }: { id: string }) {
                   <td className="p-2">{w.sightings === 0 ? "nothing seen" : w.sightings}</td>
                   <td className="p-2">{w.waiting}</td>
                   <td className="p-2">{w.completeList ? "yes" : "no"}</td>
+                  <td className="p-2 text-sm">{walkSourceText({ ...w, recorder: person.name }) ?? "from their phone"}</td>
                 </tr>
               ))}
             </tbody>
