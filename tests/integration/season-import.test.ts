@@ -23,7 +23,8 @@ const goodWalks = [
 ].join("\n");
 const goodSightings = ["walk_ref,species,count,section", "A1,Maniola jurtina,12,1", "A1,Lysandra bellargus,3,2", "A2,aglais io,1,"].join("\n");
 
-type Body = { error?: { code: string; message: string; problems?: { file: string; line: number | null; column: string | null; reason: string }[] } } & Record<string, unknown>;
+type Problem = { file: string; line: number | null; column: string | null; reason: string };
+type Body = { error?: { code: string; message: string; problems?: Problem[] } } & Record<string, unknown>;
 
 let seasonId = "";
 
@@ -40,7 +41,7 @@ const post = (path: string, body: FormData) => new Request(`http://localhost/api
 
 async function preview(f: FormData) {
   const res = await previewRoute(post("earlier-seasons/preview", f), noParams);
-  return { status: res.status, json: (await res.json()) as Body & { previewHash: string | null; counts: Record<string, number>; newRecorders: string[] } };
+  return { status: res.status, json: (await res.json()) as Body & { previewHash: string | null; counts: Record<string, number>; newRecorders: string[]; problems: Problem[] } };
 }
 async function confirm(f: FormData) {
   const res = await importRoute(post("earlier-seasons", f), noParams);
