@@ -8,21 +8,9 @@ import { hasRole } from "@/lib/auth/roles";
 import { forbidden, invalid } from "@/lib/errors";
 import { versionOn } from "@/lib/geo/versions";
 import { DEFAULT_SEASON_GRACE_DAYS } from "@/lib/limits/seasons";
+import { phaseOf, recordChangeRule } from "@/lib/seasons/rules";
 import type { PaperWalkValues } from "@/app/(review)/review/paper-walks/schema";
 import { logChange } from "./change-log";
-
-export type EntryPhase = "planning" | "open" | "grace" | "frozen";
-
-/**
- * Whether a walk may still be entered into a season: open, or closed less than the grace period
- * ago (network_settings.season_grace_days), or frozen after it. The one place this form asks it:
- * point it at lib/seasons/rules.ts once that module has landed.
- */
-export function entryPhaseOf(season: { status: "planning" | "open" | "closed"; closedAt: Date | null }, graceDays: number, now: Date = new Date()): EntryPhase {
-  if (season.status === "planning") return "planning";
-  if (season.status === "open" || !season.closedAt) return "open";
-  return now.getTime() < season.closedAt.getTime() + graceDays * 24 * 60 * 60 * 1000 ? "grace" : "frozen";
-}
 
 /** What the form offers: active volunteers (with their transects), active transects, the checklist. */
 export async function paperWalkChoices() {
@@ -47,12 +35,12 @@ async function seasonForEntry(tx: Transaction, actor: Actor, visitDate: string) 
   const [season] = await tx.select().from(seasons).where(sql`${visitDate}::date between ${seasons.startsOn} and ${seasons.endsOn}`).limit(1);
   if (!season) throw invalid({ visitDate: [`No season covers ${visitDate}. Walks are entered into a season; ask an organiser to add it.`] });
   const [settings] = await tx.select({ graceDays: networkSettings.seasonGraceDays }).from(networkSettings).limit(1);
-  const phase = entryPhaseOf(season, settings?.graceDays ?? DEFAULT_SEASON_GRACE_DAYS);
+  // The season rules (lib/seasons/rules.ts): open or in grace, or frozen for an organiser only, logged.
+  const phase = phaseOf(season, settings?.graceDays ?? DEFAULT_SEASON_GRACE_DAYS);
   if (phase === "planning") throw invalid({ visitDate: [`The ${season.name} has not opened yet.`] });
-  if (phase === "frozen" && !hasRole(actor, "organiser")) {
-    throw forbidden(`The ${season.name} is frozen: its grace period is over. Only an organiser can still enter a walk into it.`);
-  }
-  return { season, phase };
+  const rule = recordChangeRule(phase, hasRole(actor, "organiser"));
+  if (!rule.allowed) throw forbidden(`The ${season.name} is frozen: its grace period is over. Only an organiser can still enter a walk into it, and it is logged.`);
+  return { season, logged: rule.logged };
 }
 
 /**
@@ -69,7 +57,7 @@ export async function createPaperWalk(actor: Actor, input: PaperWalkValues): Pro
     if (!volunteer) throw invalid({ volunteerId: ["Choose an active volunteer."] });
     const [transect] = await tx.select({ id: transects.id, code: transects.code }).from(transects).where(and(eq(transects.id, input.transectId), eq(transects.active, true)));
     if (!transect) throw invalid({ transectId: ["Choose an active transect."] });
-    const { season, phase } = await seasonForEntry(tx, actor, input.visitDate);
+    const { season, logged } = await seasonForEntry(tx, actor, input.visitDate);
 
     const versions = await tx.select({ version: transectRouteVersions.version, validFrom: transectRouteVersions.validFrom, sectionCount: transectRouteVersions.sectionCount }).from(transectRouteVersions).where(eq(transectRouteVersions.transectId, transect.id));
     const sectionCount = versionOn(versions, input.visitDate)?.sectionCount ?? 0;
@@ -104,7 +92,7 @@ export async function createPaperWalk(actor: Actor, input: PaperWalkValues): Pro
     if (input.sightings.length) {
       await tx.insert(sightings).values(input.sightings.map((s) => ({ id: randomUUID(), visitId, speciesId: s.speciesId, count: s.count, section: s.section, status: "pending" as const })));
     }
-    if (phase === "frozen") {
+    if (logged) {
       await logChange(tx, actor, {
         entity: "season",
         entityId: season.id,
