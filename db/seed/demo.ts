@@ -8,14 +8,31 @@ import { residents } from "./story";
 
 export const DEMO_SEED = 20260401;
 
-const seasonsDef = [
-  { name: "2025 season", startsOn: "2025-04-01", endsOn: "2025-09-30", status: "closed" as const, year: 2025 },
-  { name: "2026 season", startsOn: "2026-04-01", endsOn: "2026-09-30", status: "open" as const, year: 2026 },
-];
+/** How long the demo's open season runs on after the seed day, so a walk can be recorded today and for weeks after. */
+const OPEN_SEASON_RUNS_ON_DAYS = 60;
 
-// Transects that show the comparison's exclusions and its exceptional case.
-const notWalkedIn2026 = "WDR-06";
-const oneVisitIn2026 = "DUN-06";
+type DemoSeason = { name: string; startsOn: string; endsOn: string; status: "open" | "closed"; year: number; latest: boolean };
+
+/**
+ * The demo's two seasons, placed by the day it is seeded so the demo works whatever today is: the
+ * open season's fieldwork (April to September, one walk a month) is the latest that is wholly
+ * past, and the season stays open from 1 April of that year until some weeks after the seed day;
+ * the closed season is the year before, long past its grace period (frozen). Only the dates move
+ * with the seed day: every count, species and walk stays the same.
+ */
+export function demoSeasons(seedDay: Date = new Date()): DemoSeason[] {
+  const today = seedDay.toISOString().slice(0, 10);
+  const year = today > `${seedDay.getUTCFullYear()}-09-30` ? seedDay.getUTCFullYear() : seedDay.getUTCFullYear() - 1;
+  const runsOn = new Date(Date.parse(`${today}T00:00:00Z`) + OPEN_SEASON_RUNS_ON_DAYS * 86_400_000).toISOString().slice(0, 10);
+  return [
+    { name: `${year - 1} season`, startsOn: `${year - 1}-04-01`, endsOn: `${year - 1}-09-30`, status: "closed", year: year - 1, latest: false },
+    { name: `${year} season`, startsOn: `${year}-04-01`, endsOn: runsOn, status: "open", year, latest: true },
+  ];
+}
+
+// Transects that show the comparison's exclusions and its exceptional case (in the open season).
+const notWalkedThisSeason = "WDR-06";
+const oneVisitThisSeason = "DUN-06";
 const wipedOut = "WET-05";
 
 const pad = (n: number) => String(n).padStart(2, "0");
@@ -24,7 +41,8 @@ const pad = (n: number) => String(n).padStart(2, "0");
  * Fills an empty database with the demo network, deterministically. Everything is written in
  * one transaction so a failed seed leaves nothing half-made.
  */
-export async function seedDemo(database: Database, passwordHash: string): Promise<{ sightings: number }> {
+export async function seedDemo(database: Database, passwordHash: string, seedDay: Date = new Date()): Promise<{ sightings: number }> {
+  const seasonsDef = demoSeasons(seedDay);
   const rand = mulberry32(DEMO_SEED);
   const uuid = () => seededUuid(rand);
   let sightingTotal = 0;
@@ -135,8 +153,8 @@ export async function seedDemo(database: Database, passwordHash: string): Promis
         const season = seasonRows[si]!;
         const present = si === 0 ? before : after;
         let visitCount = 6;
-        if (s.year === 2026 && d.code === notWalkedIn2026) visitCount = 0;
-        if (s.year === 2026 && d.code === oneVisitIn2026) visitCount = 1;
+        if (s.latest && d.code === notWalkedThisSeason) visitCount = 0;
+        if (s.latest && d.code === oneVisitThisSeason) visitCount = 1;
         for (let v = 0; v < visitCount; v++) {
           const month = 4 + v; // one visit a month, April to September
           const day = 3 + Math.floor(rand() * 24);
@@ -159,8 +177,8 @@ export async function seedDemo(database: Database, passwordHash: string): Promis
             completeList: rand() > 0.05,
             submittedAt: new Date(`${visitDate}T18:00:00Z`),
           });
-          // A 2026 visit from July on is still waiting for the checker.
-          const reviewed = s.year === 2025 || month < 7;
+          // An open-season visit from July on is still waiting for the checker.
+          const reviewed = !s.latest || month < 7;
           for (const sp of checklist) {
             if (!present.has(sp.scientific) || !sp.months.includes(month)) continue;
             if (rand() > 0.7) continue; // not every resident is seen on every walk
