@@ -2,7 +2,7 @@ import { z } from "zod";
 import { ACCURACY_METRES, BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SECTIONS, SIGHTING_COUNT, TEMPERATURE_C, type Range } from "@/lib/limits/counts";
 import { MAX_CO_RECORDERS_LENGTH, MAX_SIGHTING_NOTE_LENGTH, MAX_VISIT_NOTES_LENGTH } from "@/lib/limits/text";
 import { plausibleInstant, recordDate, safeText } from "@/lib/validation/fields";
-import { MAX_BATCH_ITEMS, skyValues } from "./protocol";
+import { MAX_BATCH_ITEMS, skyValues, SYNC_PROTOCOL_VERSION } from "./protocol";
 
 // The wire format between the phone's outbox and POST /api/field/sync: the server validates
 // with these schemas; the phone builds batches from the same types. The parts without zod live
@@ -24,25 +24,46 @@ const wholeBetween = (range: Range, notWhole: string, outside: { below: string; 
 const beaufort = `Beaufort force runs from ${BEAUFORT_FORCE.min} to ${BEAUFORT_FORCE.max}.`;
 const cloud = `Cloud cover is ${CLOUD_COVER_PERCENT.min}-${CLOUD_COVER_PERCENT.max}%.`;
 
+// The visit's fields; the two protocol versions differ only in the complete-list answer.
+const visitFields = {
+  id: z.uuid({ message: "The visit id must be a UUID." }),
+  transectId: z.uuid({ message: "Choose a transect." }),
+  visitDate,
+  startTime: clockTime,
+  endTime: clockTime.nullable().optional(),
+  temperatureC: between(TEMPERATURE_C, `Temperature must be a number from ${TEMPERATURE_C.min} to ${TEMPERATURE_C.max} °C.`).nullable().optional(),
+  windBeaufort: wholeBetween(BEAUFORT_FORCE, "Wind is a whole Beaufort force.", { below: beaufort, above: beaufort }).nullable().optional(),
+  cloudCoverPercent: wholeBetween(CLOUD_COVER_PERCENT, cloud, { below: cloud, above: cloud }).nullable().optional(),
+  sky: z.enum(skyValues).nullable().optional(),
+  coRecorders: optionalText(MAX_CO_RECORDERS_LENGTH),
+  notes: optionalText(MAX_VISIT_NOTES_LENGTH),
+  submittedAt: isoInstant.nullable().optional(),
+  clientUpdatedAt: isoInstant,
+};
+const endsAfterStart = (v: { startTime: string; endTime?: string | null }) => !v.endTime || v.endTime >= v.startTime;
+const endsBeforeStart = { message: "The visit cannot end before it starts.", path: ["endTime"] };
+
+export const COMPLETE_LIST_REQUIRED = "Say whether you recorded every species you saw.";
+
+/** Protocol 1 (older phones, no `protocol` in the envelope): an unanswered complete list counts as no. */
 export const visitPayload = z
-  .object({
-    id: z.uuid({ message: "The visit id must be a UUID." }),
-    transectId: z.uuid({ message: "Choose a transect." }),
-    visitDate,
-    startTime: clockTime,
-    endTime: clockTime.nullable().optional(),
-    temperatureC: between(TEMPERATURE_C, `Temperature must be a number from ${TEMPERATURE_C.min} to ${TEMPERATURE_C.max} °C.`).nullable().optional(),
-    windBeaufort: wholeBetween(BEAUFORT_FORCE, "Wind is a whole Beaufort force.", { below: beaufort, above: beaufort }).nullable().optional(),
-    cloudCoverPercent: wholeBetween(CLOUD_COVER_PERCENT, cloud, { below: cloud, above: cloud }).nullable().optional(),
-    sky: z.enum(skyValues).nullable().optional(),
-    coRecorders: optionalText(MAX_CO_RECORDERS_LENGTH),
-    completeList: z.boolean().default(false),
-    notes: optionalText(MAX_VISIT_NOTES_LENGTH),
-    submittedAt: isoInstant.nullable().optional(),
-    clientUpdatedAt: isoInstant,
-  })
-  .refine((v) => !v.endTime || v.endTime >= v.startTime, { message: "The visit cannot end before it starts.", path: ["endTime"] });
+  .object({ ...visitFields, completeList: z.boolean().default(false) })
+  .refine(endsAfterStart, endsBeforeStart);
 export type VisitPayloadInput = z.infer<typeof visitPayload>;
+
+/**
+ * Protocol 2: a submitted walk must carry the volunteer's answer, because comparisons use complete
+ * walks only and a default would count a forgotten answer as a real "no".
+ */
+export const visitPayloadV2 = z
+  .object({ ...visitFields, completeList: z.boolean({ message: COMPLETE_LIST_REQUIRED }).optional() })
+  .refine(endsAfterStart, endsBeforeStart)
+  .refine((v) => !v.submittedAt || typeof v.completeList === "boolean", { message: COMPLETE_LIST_REQUIRED, path: ["completeList"] })
+  .transform((v) => ({ ...v, completeList: v.completeList ?? false }));
+export type VisitPayloadV2Input = z.infer<typeof visitPayloadV2>;
+
+/** The visit schema for the envelope's protocol version. */
+export const visitPayloadFor = (protocol: number) => (protocol >= 2 ? visitPayloadV2 : visitPayload);
 
 export const sightingPayload = z
   .object({
@@ -64,13 +85,28 @@ export const sightingPayload = z
   .refine((s) => (s.latitude == null) === (s.longitude == null), { message: "A position needs both latitude and longitude.", path: ["latitude"] });
 export type SightingPayloadInput = z.infer<typeof sightingPayload>;
 
+export const weatherPayload = z.object({
+  id: z.uuid({ message: "The weather report id must be a UUID." }),
+  transectId: z.uuid({ message: "Choose a transect." }),
+  reportedOn: recordDate("Use a date like 2026-05-14."),
+  clientUpdatedAt: isoInstant,
+});
+export type WeatherPayloadInput = z.infer<typeof weatherPayload>;
+
 /** The envelope is checked first; items are then validated one by one so good ones still land. */
 export const syncEnvelope = z.object({
+  protocol: z.number({ message: `The protocol is a whole number up to ${SYNC_PROTOCOL_VERSION}.` }).int().min(1).max(SYNC_PROTOCOL_VERSION).default(1),
   visits: z.array(z.unknown()).max(MAX_BATCH_ITEMS).default([]),
   sightings: z.array(z.unknown()).max(MAX_BATCH_ITEMS).default([]),
+  weatherMisses: z.array(z.unknown()).max(MAX_BATCH_ITEMS).default([]),
 });
 
 
 // Compile-time guard: the zod-free types in ./protocol describe exactly what these schemas accept.
 type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-export const protocolTypesMatchSchemas: [Same<VisitPayloadInput, import("./protocol").VisitPayload>, Same<SightingPayloadInput, import("./protocol").SightingPayload>] = [true, true];
+export const protocolTypesMatchSchemas: [
+  Same<VisitPayloadInput, import("./protocol").VisitPayload>,
+  Same<VisitPayloadV2Input, import("./protocol").VisitPayload>,
+  Same<SightingPayloadInput, import("./protocol").SightingPayload>,
+  Same<WeatherPayloadInput, import("./protocol").WeatherPayload>,
+] = [true, true, true, true];

@@ -3,6 +3,12 @@
 export const skyValues = ["clear", "mostly_sunny", "broken_cloud", "mostly_cloudy", "overcast"] as const;
 
 export const MAX_BATCH_ITEMS = 500;
+
+/**
+ * The protocol version the phone states in its envelope (`protocol`). Absent means an older phone
+ * (version 1). From version 2 a submitted visit must say whether its list is complete.
+ */
+export const SYNC_PROTOCOL_VERSION = 2;
 /**
  * The largest sync request body the server reads (it answers 413 above it); the outbox stays under
  * it. A full batch of 500 sightings with long notes stays well under this.
@@ -24,6 +30,18 @@ export type VisitPayload = {
   completeList: boolean;
   notes?: string | null;
   submittedAt?: string | null;
+  clientUpdatedAt: string;
+};
+
+/**
+ * "Not walked this week because of the weather", reported from the field home (checked with
+ * contract.ts's weatherPayload). The server files it under the Monday of `reportedOn`'s week.
+ */
+export type WeatherPayload = {
+  id: string;
+  transectId: string;
+  /** The phone's local date when the volunteer tapped, YYYY-MM-DD. */
+  reportedOn: string;
   clientUpdatedAt: string;
 };
 
@@ -52,7 +70,7 @@ export type ItemStatus =
   | "forbidden"; // not the volunteer's transect or visit
 
 export type ItemResult = {
-  kind: "visit" | "sighting";
+  kind: "visit" | "sighting" | "weather";
   id: string | null;
   index: number;
   status: ItemStatus;

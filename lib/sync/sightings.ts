@@ -24,11 +24,12 @@ export function isReviewed(s: Pick<ServerSighting, "status" | "reviewedAt">): bo
   return s.status !== "pending" || s.reviewedAt !== null;
 }
 
-function toRow(s: SightingPayload): SightingRow {
+/** A phone with an old checklist may name a species merged away since: it counts as the one kept. */
+function toRow(s: SightingPayload, state: ServerState): SightingRow {
   return {
     id: s.id,
     visitId: s.visitId,
-    speciesId: s.speciesId,
+    speciesId: state.mergedInto.get(s.speciesId) ?? s.speciesId,
     count: s.count,
     section: s.section ?? null,
     latitude: s.latitude ?? null,
@@ -88,12 +89,13 @@ export function planSightings(
     let decision: Decision;
     if (server && server.ownerId !== actorId) decision = { status: "forbidden", reason: SIGHTING_REASONS.otherVolunteer };
     else if (standing.kind === "forbidden") decision = { status: "forbidden", reason: standing.reason };
+    else if (standing.kind === "frozen") decision = server || !value.deleted ? { status: "kept-server", reason: standing.reason } : decideDelete(value, server);
     else if (value.deleted) decision = decideDelete(value, server);
-    else decision = decideWrite(toRow(value), server, standing, state);
+    else decision = decideWrite(toRow(value, state), server, standing, state);
 
     results.push({ kind: "sighting", id: value.id, index, ...decision });
     if (decision.status === "deleted") deletes.push(value.id);
-    if (decision.status === "created" || decision.status === "updated") writes.push(toRow(value));
+    if (decision.status === "created" || decision.status === "updated") writes.push(toRow(value, state));
   }
   return { results, writes, deletes };
 }

@@ -2,13 +2,19 @@ import type { visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import type { ItemResult, VisitPayload } from "./contract";
 import type { Indexed } from "./parse";
+import { versionOn } from "@/lib/geo/versions";
+import { fieldDateVerdict, phaseOf } from "@/lib/seasons/rules";
 import { clockWithSeconds, olderThanServer, sameFields } from "./same";
 import { seasonFor, type ServerState, type ServerVisit } from "./server-state";
 
 export type VisitRow = typeof visits.$inferInsert & { id: string; clientUpdatedAt: Date; transectId: string };
 
 /** Where a visit stands after this batch: sightings are checked against it. */
-export type VisitStanding = { kind: "own"; sectionCount: number } | { kind: "forbidden"; reason: string } | { kind: "unknown" };
+export type VisitStanding =
+  | { kind: "own"; sectionCount: number }
+  | { kind: "frozen"; reason: string }
+  | { kind: "forbidden"; reason: string }
+  | { kind: "unknown" };
 
 export type VisitPlan = { results: ItemResult[]; writes: VisitRow[]; standings: Map<string, VisitStanding> };
 
@@ -22,7 +28,21 @@ export const VISIT_REASONS = {
   notAssigned: "You are not assigned to that transect.",
   reviewed: "A coordinator has reviewed sightings on this visit, so the server's copy of the visit is kept.",
   newer: "The server holds a newer edit of this visit.",
+  frozen: "This walk's season is closed and its grace period is over, so the server's copy is kept: only an organiser can change it now.",
 } as const;
+
+/** Whether the stored walk's season is past its grace period: the phone can no longer change it. */
+function frozen(server: ServerVisit | undefined, state: ServerState): boolean {
+  const season = server?.seasonId ? state.seasons.find((s) => s.id === server.seasonId) : undefined;
+  return !!season && phaseOf(season, state.graceDays, state.now) === "frozen";
+}
+
+/** Sections of the transect's route version in force on the walk's date. */
+export function sectionsOn(state: ServerState, transectId: string, visitDate: string): number | undefined {
+  const assigned = state.assigned.get(transectId);
+  if (assigned === undefined) return undefined;
+  return versionOn(state.versions.get(transectId) ?? [], visitDate)?.sectionCount ?? assigned;
+}
 
 function toRow(actor: Actor, v: VisitPayload, state: ServerState): VisitRow {
   return {
@@ -45,9 +65,10 @@ function toRow(actor: Actor, v: VisitPayload, state: ServerState): VisitRow {
   };
 }
 
-function decide(row: VisitRow, server: ServerVisit | undefined): [ItemResult["status"], string?] {
+function decide(row: VisitRow, server: ServerVisit | undefined, state: ServerState): [ItemResult["status"], string?] {
   if (!server) return ["created"];
   if (sameFields(compared, row, server)) return ["unchanged"];
+  if (frozen(server, state)) return ["kept-server", VISIT_REASONS.frozen];
   if (server.hasReviewed) return ["kept-server", VISIT_REASONS.reviewed];
   if (olderThanServer(row.clientUpdatedAt, server.clientUpdatedAt)) return ["kept-server", VISIT_REASONS.newer];
   return ["updated"];
@@ -55,8 +76,9 @@ function decide(row: VisitRow, server: ServerVisit | undefined): [ItemResult["st
 
 /**
  * Decides each valid visit: forbidden unless the volunteer owns it and is assigned to its
- * transect; otherwise created, unchanged, kept-server (reviewed sightings, or a newer server
- * edit) or updated (last writer wins by clientUpdatedAt).
+ * (active) transect; kept-server once its stored season is frozen; invalid when dated outside
+ * any open or in-grace season; otherwise created, unchanged, kept-server (reviewed sightings, or
+ * a newer server edit) or updated (last writer wins by clientUpdatedAt).
  */
 export function planVisits(actor: Actor, items: Indexed<VisitPayload>[], state: ServerState): VisitPlan {
   const results: ItemResult[] = [];
@@ -64,26 +86,34 @@ export function planVisits(actor: Actor, items: Indexed<VisitPayload>[], state: 
   const standings = new Map<string, VisitStanding>();
   for (const { index, value } of items) {
     const server = state.visits.get(value.id);
-    const answer = (status: ItemResult["status"], reason?: string) =>
-      results.push({ kind: "visit", id: value.id, index, status, ...(reason ? { reason } : {}) });
+    const answer = (status: ItemResult["status"], reason?: string, errors?: Record<string, string[]>) =>
+      results.push({ kind: "visit", id: value.id, index, status, ...(reason ? { reason } : {}), ...(errors ? { errors } : {}) });
 
     if (server && server.volunteerId !== actor.id) {
       answer("forbidden", VISIT_REASONS.otherVolunteer);
       standings.set(value.id, { kind: "forbidden", reason: VISIT_REASONS.otherVolunteer });
       continue;
     }
-    const sectionCount = state.assigned.get(value.transectId);
+    const sectionCount = sectionsOn(state, value.transectId, value.visitDate);
     if (sectionCount === undefined) {
       answer("forbidden", VISIT_REASONS.notAssigned);
       standings.set(value.id, { kind: "forbidden", reason: VISIT_REASONS.notAssigned });
       continue;
     }
     const row = toRow(actor, value, state);
-    const [status, reason] = decide(row, server);
+    if (!frozen(server, state)) {
+      const verdict = fieldDateVerdict(value.visitDate, state.seasons, state.graceDays, state.now);
+      if (!verdict.ok && !(server && sameFields(compared, row, server))) {
+        answer("invalid", verdict.reason, { visitDate: [verdict.reason] });
+        continue;
+      }
+    }
+    const [status, reason] = decide(row, server, state);
     answer(status, reason);
     const written = status === "created" || status === "updated";
     if (written) writes.push(row);
-    standings.set(value.id, { kind: "own", sectionCount: server && !written ? server.sectionCount : sectionCount });
+    if (frozen(server, state)) standings.set(value.id, { kind: "frozen", reason: VISIT_REASONS.frozen });
+    else standings.set(value.id, { kind: "own", sectionCount: server && !written ? server.sectionCount : sectionCount });
   }
   return { results, writes, standings };
 }
@@ -98,5 +128,6 @@ export function serverStanding(actor: Actor, visitId: string, state: ServerState
   if (!server) return { kind: "unknown" };
   if (server.volunteerId !== actor.id) return { kind: "forbidden", reason: VISIT_REASONS.otherVolunteer };
   if (!state.assigned.has(server.transectId)) return { kind: "forbidden", reason: VISIT_REASONS.notAssigned };
+  if (frozen(server, state)) return { kind: "frozen", reason: VISIT_REASONS.frozen };
   return { kind: "own", sectionCount: server.sectionCount };
 }

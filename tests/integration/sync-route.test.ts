@@ -2,7 +2,7 @@ import { randomUUID } from "node:crypto";
 import { asc, count, eq, inArray, ne } from "drizzle-orm";
 import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { db } from "@/db/client";
-import { sightings, species, transectAssignments, users, visits } from "@/db/schema";
+import { seasons, sightings, species, transectAssignments, users, visits } from "@/db/schema";
 import { MAX_SYNC_BODY_BYTES } from "@/lib/sync/protocol";
 import { TEXT_PROBLEMS } from "@/lib/validation/text";
 import { resetToDemo } from "./support/db";
@@ -32,11 +32,14 @@ async function userId(email: string) {
   return u!.id;
 }
 
+// Walks must be dated in an open season: the demo's contains the day it was seeded, so its first day is past.
+let walkDay = "";
+
 function batchFor(transectId: string, speciesId: string) {
   const visitId = randomUUID();
-  const stamp = "2026-06-02T12:00:00.000Z";
+  const stamp = `${walkDay}T12:00:00.000Z`;
   return {
-    visits: [{ id: visitId, transectId, visitDate: "2026-06-02", startTime: "11:00", clientUpdatedAt: stamp }],
+    visits: [{ id: visitId, transectId, visitDate: walkDay, startTime: "11:00", clientUpdatedAt: stamp }],
     sightings: [{ id: randomUUID(), visitId, speciesId, count: 2, section: 1, clientUpdatedAt: stamp }],
   };
 }
@@ -49,6 +52,8 @@ describe("POST /api/field/sync", () => {
 
   beforeAll(async () => {
     await resetToDemo();
+    const [open] = await db().select({ startsOn: seasons.startsOn }).from(seasons).where(eq(seasons.status, "open"));
+    walkDay = open!.startsOn;
     volunteer = await userId("volunteer01@harrowmere.example");
     const [a] = await db().select().from(transectAssignments).where(eq(transectAssignments.userId, volunteer)).limit(1);
     const [b] = await db().select().from(transectAssignments).where(ne(transectAssignments.userId, volunteer)).limit(1);

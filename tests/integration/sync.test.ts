@@ -14,11 +14,15 @@ async function actorFor(email: string): Promise<Actor> {
   return { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
 }
 
+// A walk's date must lie in an open or in-grace season: the demo's open season contains the day
+// it was seeded, so its first day is never in the future.
+let walkDay = "";
+
 function visitOf(transectId: string, over: Record<string, unknown> = {}) {
   return {
     id: randomUUID(),
     transectId,
-    visitDate: "2026-05-14",
+    visitDate: walkDay,
     startTime: "10:30",
     endTime: "11:45",
     temperatureC: 17.5,
@@ -76,6 +80,8 @@ describe("applying a sync batch from a volunteer's phone", () => {
 
   beforeEach(async () => {
     await resetToDemo();
+    const [open] = await db().select({ startsOn: seasons.startsOn }).from(seasons).where(eq(seasons.status, "open"));
+    walkDay = open!.startsOn;
     actor = await actorFor("volunteer01@harrowmere.example");
     const mine = await db()
       .select({ id: transects.id, sectionCount: transects.sectionCount })
@@ -91,28 +97,30 @@ describe("applying a sync batch from a volunteer's phone", () => {
     speciesIds = (await db().select({ id: species.id }).from(species).orderBy(asc(species.sortOrder)).limit(3)).map((s) => s.id);
   });
 
-  it("stores a new visit with its sightings and derives the season from the visit date", async () => {
+  it("stores a new visit with its sightings and derives the season from the visit date; a date in no season is refused", async () => {
     const inSeason = visitOf(transect.id);
-    const outOfSeason = visitOf(transect.id, { visitDate: "2024-12-01" });
+    const outOfSeason = visitOf(transect.id, { visitDate: "1990-12-01" });
     const batch = {
       visits: [inSeason, outOfSeason],
       sightings: [sightingOf(inSeason.id, speciesIds[0]!), sightingOf(inSeason.id, speciesIds[1]!, { section: transect.sectionCount, count: 0 })],
     };
     const { status, response } = await applySyncBatch(actor, batch);
-    expect(status).toBe(200);
+    // Before seasons had phases, a walk outside every season was stored without one; now it is refused.
+    expect(status).toBe(400);
     expect(response.results.map((r) => [r.kind, r.index, r.status])).toEqual([
       ["visit", 0, "created"],
-      ["visit", 1, "created"],
+      ["visit", 1, "invalid"],
       ["sighting", 0, "created"],
       ["sighting", 1, "created"],
     ]);
+    expect(response.results[1]!.errors?.visitDate?.[0]).toMatch(/No season covers this date/);
     expect(Date.parse(response.serverTime)).not.toBeNaN();
 
-    const [season2026] = await db().select().from(seasons).where(eq(seasons.name, "2026 season"));
+    const [openSeason] = await db().select().from(seasons).where(eq(seasons.status, "open"));
     const stored = await db().select().from(visits).where(inArray(visits.id, [inSeason.id, outOfSeason.id]));
     const byId = new Map(stored.map((v) => [v.id, v]));
-    expect(byId.get(inSeason.id)).toMatchObject({ seasonId: season2026!.id, volunteerId: actor.id, startTime: "10:30:00", notes: "Sheltered on the lower slope." });
-    expect(byId.get(outOfSeason.id)!.seasonId).toBeNull();
+    expect(byId.get(inSeason.id)).toMatchObject({ seasonId: openSeason!.id, volunteerId: actor.id, startTime: "10:30:00", notes: "Sheltered on the lower slope." });
+    expect(byId.has(outOfSeason.id)).toBe(false);
     expect(await storedSighting(batch.sightings[1]!.id)).toMatchObject({ count: 0, section: transect.sectionCount, status: "pending" });
   });
 
@@ -194,8 +202,9 @@ describe("applying a sync batch from a volunteer's phone", () => {
   it("stores the extreme values the contract accepts exactly as sent", async () => {
     const coRecorders = "Zoë Ærø, \u{1F98B} club";
     const notes = "Line one\n\tline two\r\nCafé 30\u00a0°C";
+    // The earliest date the contract takes (1900-01-01) lies in no season, so the season rule
+    // refuses it; the contract's own edge is tested in tests/unit/sync-contract.test.ts.
     const visit = visitOf(transect.id, {
-      visitDate: "1900-01-01",
       startTime: "00:00",
       endTime: "23:59:59",
       temperatureC: -40,
@@ -214,7 +223,7 @@ describe("applying a sync batch from a volunteer's phone", () => {
     expect(status).toBe(200);
     expect(response.results.map((r) => r.status)).toEqual(["created", "created"]);
     const [stored] = await db().select().from(visits).where(eq(visits.id, visit.id));
-    expect(stored).toMatchObject({ visitDate: "1900-01-01", startTime: "00:00:00", endTime: "23:59:59", coRecorders, notes });
+    expect(stored).toMatchObject({ visitDate: walkDay, startTime: "00:00:00", endTime: "23:59:59", coRecorders, notes });
     expect(stored!.clientUpdatedAt!.toISOString()).toBe("2100-12-31T23:59:59.999Z");
     expect(await storedSighting(s.id)).toMatchObject({ count: 100_000, latitude: -90, longitude: 180, accuracyMetres: 100_000, note: s.note });
     expect((await storedSighting(s.id))!.clientUpdatedAt!.toISOString()).toBe("1900-01-01T00:00:00.000Z");
