@@ -69,6 +69,8 @@ const schema = z.object({
     .string()
     .regex(/^https?:\/\/[^\s]+\{z\}[^\s]*$/, "must be an http(s) URL template with {z}, {x} and {y}")
     .optional(),
+  /** The tile provider's credit, plain text shown on every map with its tiles; required with MAP_TILE_URL. */
+  MAP_TILE_ATTRIBUTION: z.string().max(300, "must be at most 300 characters").optional(),
   WORKER_INTERVAL_MS: wholeNumber(100, 3_600_000, 5000),
 });
 
@@ -126,6 +128,10 @@ export function parseEnv(source: Record<string, string | undefined>): Env {
   const cleaned = Object.fromEntries(Object.entries(source).filter(([, v]) => v !== undefined && v !== "")) as Record<string, string>;
   const result = schema.safeParse(cleaned);
   const issues = result.success ? [] : result.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`);
+  // Tile services license their tiles on condition that the map credits them.
+  if (result.success && result.data.MAP_TILE_URL && !result.data.MAP_TILE_ATTRIBUTION) {
+    issues.push("MAP_TILE_ATTRIBUTION: must be set with MAP_TILE_URL, to the credit the tile provider asks for (e.g. © OpenStreetMap contributors)");
+  }
   if (result.success && result.data.TURNSTONE_ENV === "production") issues.push(...productionProblems(cleaned, result.data));
   if (issues.length > 0 || !result.success) throw new EnvError(issues);
   return result.data;

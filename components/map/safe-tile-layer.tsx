@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { TileLayer } from "react-leaflet";
+import { useTileCreditHtml } from "./tile-credit";
 
 /**
  * Background tiles from the configured XYZ template, taken away at the first tile that fails
@@ -10,10 +11,12 @@ import { TileLayer } from "react-leaflet";
  */
 export function SafeTileLayer({ url, onFailed }: { url: string | null; onFailed?: () => void }) {
   const [failed, setFailed] = useState(false);
+  const attribution = useTileCreditHtml();
   if (!url || failed) return null;
   return (
     <TileLayer
       url={url}
+      attribution={attribution}
       eventHandlers={{
         tileerror: () => {
           setFailed(true);

@@ -2,9 +2,14 @@
 
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useState } from "react";
+import { TileCreditProvider } from "@/components/map/tile-credit";
 
 /** Client-side data for the organisers' pages: react-query against our route handlers. */
-export function NetworkProviders({ children }: { children: React.ReactNode }) {
+export function NetworkProviders({ tileCredit = null, children }: { tileCredit?: string | null; children: React.ReactNode }) {
   const [client] = useState(() => new QueryClient({ defaultOptions: { queries: { staleTime: 30_000, retry: 1, refetchOnWindowFocus: false } } }));
-  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+  return (
+    <QueryClientProvider client={client}>
+      <TileCreditProvider value={tileCredit}>{children}</TileCreditProvider>
+    </QueryClientProvider>
+  );
 }

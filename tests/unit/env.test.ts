@@ -53,6 +53,13 @@ describe("configuration", () => {
     expect(problems({ WORKER_INTERVAL_MS: "soon" })).toEqual(["WORKER_INTERVAL_MS"]);
   });
 
+  it("asks for the tile provider's credit whenever tiles are configured", () => {
+    const url = "https://tiles.example.net/{z}/{x}/{y}.png";
+    expect(problems({ MAP_TILE_URL: url })).toEqual(["MAP_TILE_ATTRIBUTION"]);
+    expect(parseEnv({ MAP_TILE_URL: url, MAP_TILE_ATTRIBUTION: "Tiles © Example Maps" }).MAP_TILE_ATTRIBUTION).toBe("Tiles © Example Maps");
+    expect(problems({})).toEqual([]);
+  });
+
   it("treats an empty value as unset", () => {
     expect(parseEnv({ S3_BUCKET: "" }).S3_BUCKET).toBe("turnstone-photos");
   });

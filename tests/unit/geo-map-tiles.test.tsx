@@ -1,6 +1,7 @@
 import { act, render, screen } from "@testing-library/react";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { MapFrame } from "@/components/map/map-frame";
+import { TileCreditProvider } from "@/components/map/tile-credit";
 
 // jsdom lays nothing out, so the map's container is given a size for Leaflet to fill with tiles
 // (on HTMLElement, shadowing Element's own getters until the suite ends).
@@ -38,5 +39,16 @@ describe("the map's background", () => {
     expect(tiles(container)).toHaveLength(0);
     expect(screen.getByRole("status").textContent).toMatch(/Map tiles could not load, so routes are drawn on a plain background/);
     expect(screen.getByRole("region", { name: "Test map" }).dataset.tiles).toBe("off");
+  });
+
+  it("credits the tile provider beside its tiles, as plain text (markup in the setting is not run)", () => {
+    const { container } = render(
+      <TileCreditProvider value={'Tiles © Example Maps <img src=x onerror="alert(1)">'}>
+        <MapFrame tileUrl="https://tiles.example.invalid/{z}/{x}/{y}.png" bounds={bounds} fitKey={1} label="Test map">{null}</MapFrame>
+      </TileCreditProvider>,
+    );
+    const credit = container.querySelector(".leaflet-control-attribution");
+    expect(credit?.textContent).toContain('Tiles © Example Maps <img src=x onerror="alert(1)">');
+    expect(credit?.querySelector("img")).toBeNull();
   });
 });
