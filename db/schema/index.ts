@@ -6,3 +6,4 @@ export * from "./review";
 export * from "./analysis";
 export * from "./comms";
 export * from "./history";
+export * from "./effort";
