@@ -4,6 +4,7 @@ import * as t from "../schema";
 import { demoHabitats, demoNetwork, demoPassword, demoPeople, demoTransects, type HabitatCode } from "./network";
 import { mulberry32, seededUuid } from "./random";
 import { checklist, speciesTags } from "./species";
+import { seedEffortExtras } from "./effort";
 import { residents } from "./story";
 
 export const DEMO_SEED = 20260401;
@@ -232,6 +233,8 @@ export async function seedDemo(database: Database, passwordHash: string, seedDay
     for (let i = 0; i < sightingRows.length; i += 500) await tx.insert(t.sightings).values(sightingRows.slice(i, i + 500));
     for (let i = 0; i < eventRows.length; i += 500) await tx.insert(t.verificationEvents).values(eventRows.slice(i, i + 500));
     sightingTotal = sightingRows.length;
+    const latest = seasonsDef.findIndex((s) => s.latest);
+    await seedEffortExtras(tx, seasonRows[latest]!.id, seasonsDef[latest]!.year);
   });
   return { sightings: sightingTotal };
 }
