@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { homeSeason } from "@/lib/effort/home-season";
 import { ALERT_WEEKS, buildGrid, cellState, needsAlert, progressOf, seasonWeeks, weekEnded, weeksWithoutWalk } from "@/lib/effort/grid";
 
 // 2026-04-01 is a Wednesday; 2026-03-30 the Monday of its week.
@@ -102,5 +103,15 @@ describe("progress against the target", () => {
     expect(progressOf(5, 6)).toBe("half_or_more");
     expect(progressOf(6, 6)).toBe("target_reached");
     expect(progressOf(9, 6)).toBe("target_reached");
+  });
+});
+
+describe("the season the home shows", () => {
+  const s = (name: string, status: "planning" | "open" | "closed", startsOn: string) => ({ name, status, startsOn });
+  it("is the open one, else the latest closed, else the latest planned", () => {
+    expect(homeSeason([s("a", "closed", "2025-04-01"), s("b", "open", "2026-04-01"), s("c", "planning", "2027-04-01")])?.name).toBe("b");
+    expect(homeSeason([s("a", "closed", "2024-04-01"), s("b", "closed", "2025-04-01"), s("c", "planning", "2027-04-01")])?.name).toBe("b");
+    expect(homeSeason([s("c", "planning", "2027-04-01"), s("d", "planning", "2028-04-01")])?.name).toBe("d");
+    expect(homeSeason([])).toBeNull();
   });
 });
