@@ -6,7 +6,13 @@ CREATE TABLE "visit_summaries" (
 	"rejected" integer DEFAULT 0 NOT NULL
 );
 --> statement-breakpoint
+DROP INDEX "network_changes_created_idx";--> statement-breakpoint
+DROP INDEX "network_changes_entity_idx";--> statement-breakpoint
 ALTER TABLE "visit_summaries" ADD CONSTRAINT "visit_summaries_visit_id_visits_id_fk" FOREIGN KEY ("visit_id") REFERENCES "public"."visits"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+CREATE INDEX "network_changes_entity_time_idx" ON "network_changes" USING btree ("entity","created_at","id");--> statement-breakpoint
+CREATE INDEX "network_changes_created_idx" ON "network_changes" USING btree ("created_at","id");--> statement-breakpoint
+CREATE INDEX "network_changes_entity_idx" ON "network_changes" USING btree ("entity","entity_id","created_at","id");
+--> statement-breakpoint
 -- Hand-written: the triggers that keep visit_summaries equal to counting each walk's sightings by
 -- status. Statement-level with transition tables, so a bulk write (an import of 100,000 rows, a
 -- merge re-pointing every sighting of a species) costs one grouped upsert, not a trigger per row.

@@ -34,8 +34,12 @@ export const networkChanges = pgTable(
     after: jsonb("after"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
+  // The history page reads newest first by (created_at, id), whole or by entity (and id), with
+  // keyset cursors: each index ends in both columns, so each page is one index range read
+  // backwards, however long the log grows.
   (t) => [
-    index("network_changes_created_idx").on(t.createdAt.desc(), t.id),
-    index("network_changes_entity_idx").on(t.entity, t.entityId, t.createdAt),
+    index("network_changes_created_idx").on(t.createdAt, t.id),
+    index("network_changes_entity_time_idx").on(t.entity, t.createdAt, t.id),
+    index("network_changes_entity_idx").on(t.entity, t.entityId, t.createdAt, t.id),
   ],
 );
