@@ -6,17 +6,20 @@ import {
   batchStatus,
   sightingPayload,
   syncEnvelope,
-  visitPayload,
+  visitPayloadFor,
+  weatherPayload,
   type ItemResult,
   type SightingPayload,
   type SyncResponse,
   type VisitPayload,
+  type WeatherPayload,
 } from "./contract";
 import { inBatchTransaction, type BatchTx, type BatchWork } from "./batch-transaction";
 import { parseItems, type ParsedItems } from "./parse";
 import { loadServerState } from "./server-state";
 import { planSightings } from "./sightings";
 import { planVisits, serverStanding, type VisitStanding } from "./visits";
+import { insertWeatherMisses, loadStoredMisses, planWeather } from "./weather";
 import { BatchRaced, deletePendingSightings, upsertSightings, upsertVisits } from "./write";
 
 export type SyncOutcome = { status: 200 | 400 | 403; response: SyncResponse };
@@ -36,25 +39,27 @@ function isRetryable(error: unknown): boolean {
 
 const byIndex = (a: ItemResult, b: ItemResult) => a.index - b.index;
 
-type ParsedBatch = { visits: ParsedItems<VisitPayload>; sightings: ParsedItems<SightingPayload> };
+type ParsedBatch = { visits: ParsedItems<VisitPayload>; sightings: ParsedItems<SightingPayload>; weather: ParsedItems<WeatherPayload> };
 
 async function applyInTransaction(tx: BatchTx, begun: Promise<unknown>, actor: Actor, batch: ParsedBatch): Promise<BatchWork<ItemResult[]>> {
-  const { visits: parsedVisits, sightings: parsedSightings } = batch;
+  const { visits: parsedVisits, sightings: parsedSightings, weather: parsedWeather } = batch;
   const visitItems = parsedVisits.valid.map((v) => v.value);
   const sightingItems = parsedSightings.valid.map((s) => s.value);
 
-  const [state] = await Promise.all([
+  const [state, storedMisses] = await Promise.all([
     loadServerState(tx, actor, {
       visitIds: [...new Set([...visitItems.map((v) => v.id), ...sightingItems.map((s) => s.visitId)])],
       sightingIds: sightingItems.map((s) => s.id),
       speciesIds: [...new Set(sightingItems.filter((s) => !s.deleted).map((s) => s.speciesId))],
     }),
+    loadStoredMisses(tx, actor, parsedWeather.valid.map((w) => w.value)),
     begun, // nothing is written unless the transaction really began
   ]);
 
   const visitPlan = planVisits(actor, parsedVisits.valid, state);
   const standingOf = (visitId: string): VisitStanding => visitPlan.standings.get(visitId) ?? serverStanding(actor, visitId, state);
   const sightingPlan = planSightings(actor.id, parsedSightings.valid, state, standingOf);
+  const weatherPlan = planWeather(actor, parsedWeather.valid, state, storedMisses);
 
   // Sent now, in this order, on the batch's connection (the visits land before the sightings
   // that reference them); the COMMIT follows in the same network write.
@@ -62,11 +67,13 @@ async function applyInTransaction(tx: BatchTx, begun: Promise<unknown>, actor: A
     upsertVisits(tx, visitPlan.writes),
     upsertSightings(tx, actor.id, sightingPlan.writes),
     deletePendingSightings(tx, sightingPlan.deletes),
+    insertWeatherMisses(tx, weatherPlan.writes),
   ]);
 
   const value = [
     ...[...visitPlan.results, ...parsedVisits.rejected].sort(byIndex),
     ...[...sightingPlan.results, ...parsedSightings.rejected].sort(byIndex),
+    ...[...weatherPlan.results, ...parsedWeather.rejected].sort(byIndex),
   ];
   return { value, written };
 }
@@ -80,13 +87,15 @@ export async function applySyncBatch(actor: Actor, body: unknown): Promise<SyncO
   const envelope = syncEnvelope.safeParse(body);
   if (!envelope.success) throw invalid(fieldErrorsOf(envelope.error), "The sync batch is not in the expected shape.");
   const batch: ParsedBatch = {
-    visits: parseItems("visit", envelope.data.visits, visitPayload),
+    // The envelope's protocol decides what a visit must carry (from 2: the complete-list answer).
+    visits: parseItems("visit", envelope.data.visits, visitPayloadFor(envelope.data.protocol)),
     sightings: parseItems("sighting", envelope.data.sightings, sightingPayload),
+    weather: parseItems("weather", envelope.data.weatherMisses, weatherPayload),
   };
 
-  if (!batch.visits.valid.length && !batch.sightings.valid.length) {
+  if (!batch.visits.valid.length && !batch.sightings.valid.length && !batch.weather.valid.length) {
     // Nothing to write: answer without touching the database.
-    const results = [...batch.visits.rejected, ...batch.sightings.rejected];
+    const results = [...batch.visits.rejected, ...batch.sightings.rejected, ...batch.weather.rejected];
     return { status: batchStatus(results), response: { results, serverTime: new Date().toISOString() } };
   }
   for (let attempt = 1; ; attempt++) {

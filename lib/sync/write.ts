@@ -19,7 +19,7 @@ export class BatchRaced extends Error {
 // 0001), which raises serialization_failure when a rule in the WHERE clause left a row out:
 // another writer got there after the batch's read. That aborts the transaction in PostgreSQL
 // itself, so the COMMIT queued behind the writes rolls back, and the batch is retried.
-async function guarded(what: string, expected: number, write: Promise<{ n: string | number }[]>): Promise<void> {
+export async function guarded(what: string, expected: number, write: Promise<{ n: string | number }[]>): Promise<void> {
   const rows = await write.catch((error: unknown) => {
     if ((error as { code?: unknown }).code === "40001") throw new BatchRaced(what, { cause: error });
     throw error;
