@@ -1,6 +1,8 @@
 // Splits what the outbox has to send into request bodies the server accepts: no more items of
 // each kind than it allows, and no body over its byte limit. Pure, so the limits can be tested.
 
+import { SYNC_PROTOCOL_VERSION } from "@/lib/sync/protocol";
+
 export type BatchLimits = { visits: number; sightings: number; bodyBytes: number };
 
 /** An item with its JSON as it will travel, and that JSON's size in UTF-8 bytes. */
@@ -20,10 +22,10 @@ export function encode<T>(item: T, payload: unknown): Encoded<T> {
 
 /** The request body for a batch, byte for byte what `bytes` was counted from. */
 export function batchBody(batch: Batch<unknown, unknown>): string {
-  return `{"visits":[${batch.visits.map((v) => v.json).join(",")}],"sightings":[${batch.sightings.map((s) => s.json).join(",")}]}`;
+  return `{"protocol":${SYNC_PROTOCOL_VERSION},"visits":[${batch.visits.map((v) => v.json).join(",")}],"sightings":[${batch.sightings.map((s) => s.json).join(",")}]}`;
 }
 
-const EMPTY_BODY_BYTES = utf8.encode('{"visits":[],"sightings":[]}').length;
+const EMPTY_BODY_BYTES = utf8.encode(`{"protocol":${SYNC_PROTOCOL_VERSION},"visits":[],"sightings":[]}`).length;
 
 function emptyBatch<V, S>(): Batch<V, S> {
   return { visits: [], sightings: [], bytes: EMPTY_BODY_BYTES };

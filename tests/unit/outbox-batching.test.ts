@@ -1,3 +1,4 @@
+import { SYNC_PROTOCOL_VERSION } from "@/lib/sync/protocol";
 import "fake-indexeddb/auto";
 import { beforeEach, describe, expect, it } from "vitest";
 import { PhoneStore, phoneStore, setPhoneStore, setFieldUser, type LocalSighting } from "@/lib/offline/phone-store";
@@ -72,7 +73,7 @@ describe("planning batches", () => {
       const body = batchBody(batch);
       expect(utf8.encode(body).length).toBe(batch.bytes);
       expect(batch.bytes).toBeLessThanOrEqual(limits.bodyBytes);
-      expect(JSON.parse(body)).toEqual({ visits: batch.visits.map((v) => v.item), sightings: batch.sightings.map((s) => s.item) });
+      expect(JSON.parse(body)).toEqual({ protocol: SYNC_PROTOCOL_VERSION, visits: batch.visits.map((v) => v.item), sightings: batch.sightings.map((s) => s.item) });
     }
     // Full batches: a smaller count limit, not the byte limit, would have allowed more per batch.
     expect(batches[1]!.bytes + oneSighting + 1).toBeGreaterThan(limits.bodyBytes);

@@ -113,7 +113,9 @@ describe("recording screen", () => {
     // Finishing keeps what was entered last time.
     fireEvent.click(screen.getByRole("button", { name: "Finish the walk" }));
     expect(screen.getByLabelText("End time")).toHaveValue("11:45");
-    expect(screen.getByLabelText(/I recorded every species/)).toBeChecked();
+    // The complete-list question is asked afresh, with no answer chosen in advance.
+    expect(screen.getByRole("radio", { name: "Yes, every species I could identify" })).not.toBeChecked();
+    expect(screen.getByRole("radio", { name: "No, only some of them" })).not.toBeChecked();
     expect(screen.getByLabelText("Notes (optional)")).toHaveValue("Breezy on the ridge");
 
     // DUN-02 has 4 sections: the Small White in section 6 must be changed before it can go.
@@ -124,8 +126,12 @@ describe("recording screen", () => {
     await phoneStore().sightings.update(white.id, { section: 2 });
     await screen.findByText(/^Section 2/);
     fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
+    expect(await screen.findByRole("alert")).toHaveTextContent("Answer whether you recorded every species you saw before submitting.");
+    expect((await phoneStore().visits.get(visitId))!.phase).toBe("draft");
+    fireEvent.click(screen.getByRole("radio", { name: "No, only some of them" }));
+    fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
     await screen.findByTestId("visit-submitted");
-    expect(await phoneStore().visits.get(visitId)).toMatchObject({ phase: "submitted", outbox: "on-phone", attention: null, transectId: transectB, endTime: "11:45" });
+    expect(await phoneStore().visits.get(visitId)).toMatchObject({ phase: "submitted", outbox: "on-phone", attention: null, transectId: transectB, endTime: "11:45", completeList: false });
     expect(syncNow).toHaveBeenCalled();
   });
 

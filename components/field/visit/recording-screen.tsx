@@ -20,6 +20,8 @@ const StartVisitForm = lazy(() => import("./start-visit-form").then((m) => ({ de
 
 type Transect = { id: string; code: string; name: string; sectionCount: number; coastal: boolean };
 
+const COMPLETE_LIST_QUESTION_UNANSWERED = "Answer whether you recorded every species you saw before submitting.";
+
 export function RecordingScreen({
   visitId,
   transectHint,
@@ -53,7 +55,8 @@ export function RecordingScreen({
   const [editingDetails, setEditingDetails] = useState(false);
   const [finishing, setFinishing] = useState(false);
   const [endTime, setEndTime] = useState("");
-  const [completeList, setCompleteList] = useState(false);
+  // Asked afresh at every finish, with no answer chosen in advance: comparisons use complete lists only.
+  const [completeList, setCompleteList] = useState<boolean | null>(null);
   const [notes, setNotes] = useState("");
   const [error, setError] = useState<string | null>(null);
 
@@ -98,7 +101,7 @@ export function RecordingScreen({
   const startFinishing = () => {
     // A visit sent back by the server keeps what the volunteer entered last time.
     setEndTime(visit.endTime ?? timeNow());
-    setCompleteList(visit.completeList);
+    setCompleteList(null);
     setNotes(visit.notes ?? "");
     setError(null);
     setFinishing(true);
@@ -110,6 +113,7 @@ export function RecordingScreen({
     if (beyond.length > 0) {
       return setError(`${transect!.code} has ${transect!.sectionCount} sections: change the section of ${beyond.map((s) => speciesName(s.speciesId)).join(", ")} first.`);
     }
+    if (completeList === null) return setError(COMPLETE_LIST_QUESTION_UNANSWERED);
     try {
       await submitVisit(visitId, { endTime: endTime || timeNow(), completeList, notes: notes.trim() || null });
       setFinishing(false);
@@ -245,20 +249,22 @@ export function RecordingScreen({
             <label htmlFor="endTime" className="field-label">End time</label>
             <input id="endTime" type="time" className="field-input" value={endTime} onChange={(e) => setEndTime(e.target.value)} />
           </div>
-          <label className="flex min-h-tap items-start gap-3">
-            <input type="checkbox" className="mt-1 h-6 w-6" checked={completeList} onChange={(e) => setCompleteList(e.target.checked)} />
-            <span>
-              <strong>I recorded every species I could identify.</strong>
-              <br />
-              <span className="text-sm text-shingle-600">Only complete lists tell us what was absent.</span>
-            </span>
-          </label>
+          <fieldset>
+            <legend className="font-bold">Did you record every species you saw?</legend>
+            <p className="text-sm text-shingle-600">Only complete lists tell us what was absent, so comparisons use them alone.</p>
+            {([[true, "Yes, every species I could identify"], [false, "No, only some of them"]] as const).map(([value, label]) => (
+              <label key={String(value)} className="mt-2 flex min-h-tap items-center gap-3 rounded-lg border border-shingle-200 px-3 py-2">
+                <input type="radio" name="completeList" className="h-6 w-6" checked={completeList === value} onChange={() => setCompleteList(value)} />
+                {label}
+              </label>
+            ))}
+          </fieldset>
           <div>
             <label htmlFor="visit-notes" className="field-label">Notes (optional)</label>
             <textarea id="visit-notes" rows={2} maxLength={2000} className="field-input" value={notes} onChange={(e) => setNotes(e.target.value)} />
           </div>
           <p className="rounded-lg bg-shingle-50 p-2">
-            Review: {sightings.length} sighting{sightings.length === 1 ? "" : "s"}, {photos.length} photo{photos.length === 1 ? "" : "s"}, {completeList ? "complete list" : "not a complete list"}.
+            Review: {sightings.length} sighting{sightings.length === 1 ? "" : "s"}, {photos.length} photo{photos.length === 1 ? "" : "s"}, {completeList === null ? "complete list not answered yet" : completeList ? "complete list" : "not a complete list"}.
           </p>
           <div className="grid grid-cols-2 gap-2">
             <button type="button" className="btn-quiet min-w-tap" onClick={() => setFinishing(false)}>Back</button>

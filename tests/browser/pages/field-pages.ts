@@ -82,7 +82,7 @@ export class VisitPage {
   async finishAndSubmit(endTime: string) {
     await this.page.getByRole("button", { name: "Finish the walk" }).click();
     await this.page.getByLabel("End time").fill(endTime);
-    await this.page.getByLabel(/I recorded every species I could identify/).check();
+    await this.page.getByRole("radio", { name: "Yes, every species I could identify" }).check();
     await this.page.getByRole("button", { name: "Submit visit" }).click();
     await this.page.getByTestId("visit-submitted").waitFor();
   }
