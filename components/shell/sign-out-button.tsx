@@ -12,6 +12,7 @@ export function unsentWarning(unsent: UnsentOnPhone): string | null {
     unsent.visits ? plural(unsent.visits, "visit") : null,
     unsent.sightings ? plural(unsent.sightings, "sighting") : null,
     unsent.photos ? plural(unsent.photos, "photo") : null,
+    unsent.weatherReports ? plural(unsent.weatherReports, "weather report") : null,
   ].filter((p): p is string => p !== null);
   if (!parts.length) return null;
   const list = parts.length > 1 ? `${parts.slice(0, -1).join(", ")} and ${parts.at(-1)}` : parts[0];

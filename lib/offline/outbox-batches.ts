@@ -3,7 +3,7 @@
 
 import { SYNC_PROTOCOL_VERSION } from "@/lib/sync/protocol";
 
-export type BatchLimits = { visits: number; sightings: number; bodyBytes: number };
+export type BatchLimits = { visits: number; sightings: number; bodyBytes: number; /** Weather reports per batch (default: as many as sightings). */ weather?: number };
 
 /** An item with its JSON as it will travel, and that JSON's size in UTF-8 bytes. */
 export type Encoded<T> = { item: T; json: string; bytes: number };
@@ -11,7 +11,8 @@ export type Encoded<T> = { item: T; json: string; bytes: number };
 /** A visit to send with its sightings; `visit` is null when the server already has the visit. */
 export type VisitGroup<V, S> = { visit: Encoded<V> | null; sightings: Encoded<S>[] };
 
-export type Batch<V, S> = { visits: Encoded<V>[]; sightings: Encoded<S>[]; bytes: number };
+/** One request's items; weather reports travel in batches of their own (see weatherBatches). */
+export type Batch<V, S, W = never> = { visits: Encoded<V>[]; sightings: Encoded<S>[]; weather?: Encoded<W>[]; bytes: number };
 
 const utf8 = new TextEncoder();
 
@@ -21,11 +22,16 @@ export function encode<T>(item: T, payload: unknown): Encoded<T> {
 }
 
 /** The request body for a batch, byte for byte what `bytes` was counted from. */
-export function batchBody(batch: Batch<unknown, unknown>): string {
-  return `{"protocol":${SYNC_PROTOCOL_VERSION},"visits":[${batch.visits.map((v) => v.json).join(",")}],"sightings":[${batch.sightings.map((s) => s.json).join(",")}]}`;
+export function batchBody(batch: Batch<unknown, unknown, unknown>): string {
+  const weather = batch.weather?.length ? `,${WEATHER_KEY}[${batch.weather.map((w) => w.json).join(",")}]` : "";
+  return `{"protocol":${SYNC_PROTOCOL_VERSION},"visits":[${batch.visits.map((v) => v.json).join(",")}],"sightings":[${batch.sightings.map((s) => s.json).join(",")}]${weather}}`;
 }
 
+const WEATHER_KEY = `"weatherMisses":`;
+
 const EMPTY_BODY_BYTES = utf8.encode(`{"protocol":${SYNC_PROTOCOL_VERSION},"visits":[],"sightings":[]}`).length;
+// `,"weatherMisses":[]` on top of an empty body.
+const WEATHER_LIST_BYTES = utf8.encode(`,${WEATHER_KEY}[]`).length;
 
 function emptyBatch<V, S>(): Batch<V, S> {
   return { visits: [], sightings: [], bytes: EMPTY_BODY_BYTES };
@@ -77,4 +83,23 @@ export function planBatches<V, S>(groups: VisitGroup<V, S>[], limits: BatchLimit
   }
   close();
   return batches;
+}
+
+/**
+ * Weather reports in batches of their own (a report is a few hundred bytes, so one batch
+ * usually holds them all), within the same count and byte limits.
+ */
+export function weatherBatches<W>(reports: Encoded<W>[], limits: BatchLimits): Batch<never, never, W>[] {
+  const perBatch = limits.weather ?? limits.sightings;
+  const batches: { weather: Encoded<W>[]; bytes: number }[] = [];
+  for (const report of reports) {
+    const current = batches.at(-1);
+    const fits = current && current.weather.length < perBatch && current.bytes + addedBytes(current.weather.length, [report]) <= limits.bodyBytes;
+    // A report too large even for an empty batch goes alone, as in planBatches.
+    if (current && fits) {
+      current.bytes += addedBytes(current.weather.length, [report]);
+      current.weather.push(report);
+    } else batches.push({ weather: [report], bytes: EMPTY_BODY_BYTES + WEATHER_LIST_BYTES + report.bytes });
+  }
+  return batches.map((b) => ({ visits: [], sightings: [], ...b }));
 }

@@ -1,18 +1,25 @@
 import { settledStatuses, type ItemResult } from "@/lib/sync/protocol";
-import { phoneStore, type LocalSighting, type LocalVisit } from "./phone-store";
+import { phoneStore, type LocalSighting, type LocalVisit, type LocalWeatherMiss } from "./phone-store";
 import type { Batch } from "./outbox-batches";
 import type { OutboxRun } from "./outbox";
 
 // Records the server's answer to a batch in the phone's store: each item sent, kept on the
 // server, back on the phone for the next pass, or needing the volunteer's attention.
 
-export type OutboxBatch = Batch<LocalVisit, LocalSighting>;
+export type OutboxBatch = Batch<LocalVisit, LocalSighting, LocalWeatherMiss>;
+
+/** The ids of a batch's items, by kind. */
+export type BatchIds = { visitIds: string[]; sightingIds: string[]; weatherIds: string[] };
 
 const SIGHTING_NEEDS_ATTENTION = "A record in this visit needs attention.";
 
 function describe(result: ItemResult): string {
   if (result.status === "forbidden") return result.reason ?? "This transect is not assigned to you any more.";
-  const fieldMessages = Object.entries(result.errors ?? {}).map(([field, msgs]) => `${field}: ${msgs.join(" ")}`);
+  // A reason the server also put on its field (a date outside the season, say) is said once.
+  const fieldMessages = Object.entries(result.errors ?? {}).flatMap(([field, msgs]) => {
+    const more = msgs.filter((m) => m !== result.reason);
+    return more.length ? [`${field}: ${more.join(" ")}`] : [];
+  });
   return [result.reason, ...fieldMessages].filter(Boolean).join("; ") || "The server could not accept this item.";
 }
 
@@ -22,15 +29,17 @@ export function setSightings(ids: string[], changes: Partial<Pick<LocalSighting,
 }
 
 /** Leaves items on the phone for the next pass, with a note the outbox can show. */
-export async function backToPhone(visitIds: string[], sightingIds: string[], note?: string) {
+export async function backToPhone({ visitIds, sightingIds, weatherIds }: BatchIds, note?: string) {
   const db = phoneStore();
-  await db.transaction("rw", db.visits, db.sightings, async () => {
-    await db.visits.where("id").anyOf(visitIds).modify((v) => {
-      v.outbox = "on-phone";
-      v.attention = note ?? null;
-      v.attempts += 1;
-    });
+  const again = (item: { outbox: string; attention: string | null; attempts: number }) => {
+    item.outbox = "on-phone";
+    item.attention = note ?? null;
+    item.attempts += 1;
+  };
+  await db.transaction("rw", db.visits, db.sightings, db.weatherMisses, async () => {
+    await db.visits.where("id").anyOf(visitIds).modify(again);
     await setSightings(sightingIds, { outbox: "on-phone" });
+    await db.weatherMisses.where("id").anyOf(weatherIds).modify(again);
   });
 }
 
@@ -39,13 +48,15 @@ export async function refuseBatch(batch: OutboxBatch, message: string, run: Outb
   const db = phoneStore();
   const visitIds = new Set(batch.visits.map((v) => v.item.id));
   const parentsOnServer = new Set(batch.sightings.map((s) => s.item.visitId).filter((id) => !visitIds.has(id)));
-  await db.transaction("rw", db.visits, db.sightings, async () => {
+  const weatherIds = (batch.weather ?? []).map((w) => w.item.id);
+  await db.transaction("rw", db.visits, db.sightings, db.weatherMisses, async () => {
+    await db.weatherMisses.where("id").anyOf(weatherIds).modify({ outbox: "needs-attention", attention: message });
     await db.visits.where("id").anyOf([...visitIds]).modify({ outbox: "needs-attention", attention: message });
     await setSightings(batch.sightings.map((s) => s.item.id), { outbox: "needs-attention", attention: message });
     await db.visits.where("id").anyOf([...parentsOnServer]).modify({ outbox: "needs-attention", attention: `${SIGHTING_NEEDS_ATTENTION} ${message}` });
   });
   for (const id of [...visitIds, ...parentsOnServer]) held.add(id);
-  run.needsAttention += batch.visits.length + batch.sightings.length;
+  run.needsAttention += batch.visits.length + batch.sightings.length + weatherIds.length;
 }
 
 async function noteKeptOnServer(visitId: string, what: "visit" | "sighting") {
@@ -61,7 +72,17 @@ export async function applyResults(results: ItemResult[], batch: OutboxBatch, ru
   const byKey = new Map(results.map((r) => [`${r.kind}:${r.index}`, r]));
   const settled = (r: ItemResult | undefined): r is ItemResult => !!r && settledStatuses.includes(r.status);
   const refusedVisits = new Set<string>();
-  await db.transaction("rw", db.visits, db.sightings, async () => {
+  await db.transaction("rw", db.visits, db.sightings, db.weatherMisses, async () => {
+    for (const [index, { item: w }] of (batch.weather ?? []).entries()) {
+      const r = byKey.get(`weather:${index}`);
+      if (settled(r)) {
+        await db.weatherMisses.update(w.id, { outbox: "sent", attention: null });
+        run.sent++;
+      } else {
+        await db.weatherMisses.update(w.id, { outbox: "needs-attention", attention: r ? describe(r) : "The server did not answer for this weather report." });
+        run.needsAttention++;
+      }
+    }
     for (const [index, { item: v }] of batch.visits.entries()) {
       const r = byKey.get(`visit:${index}`);
       if (settled(r)) {

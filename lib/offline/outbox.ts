@@ -1,6 +1,6 @@
-import { MAX_BATCH_ITEMS, MAX_SYNC_BODY_BYTES, type ItemResult, type SightingPayload, type SyncResponse, type VisitPayload } from "@/lib/sync/protocol";
-import { belongsTo, phoneStore, isWaiting, type LocalSighting, type LocalVisit, type OutboxState } from "./phone-store";
-import { batchBody, encode, planBatches, type BatchLimits, type VisitGroup } from "./outbox-batches";
+import { MAX_BATCH_ITEMS, MAX_SYNC_BODY_BYTES, type ItemResult, type SightingPayload, type SyncResponse, type VisitPayload, type WeatherPayload } from "@/lib/sync/protocol";
+import { belongsTo, phoneStore, isWaiting, type LocalSighting, type LocalVisit, type LocalWeatherMiss, type OutboxState } from "./phone-store";
+import { batchBody, encode, planBatches, weatherBatches, type BatchLimits, type VisitGroup } from "./outbox-batches";
 import { applyResults, backToPhone, refuseBatch, setSightings, type OutboxBatch } from "./outbox-results";
 import { sendPhotos } from "./photo-upload";
 import { ownWalk } from "./records";
@@ -14,6 +14,7 @@ import { isPassingFault, readServerError } from "./server-answers";
 export const OUTBOX_LIMITS: BatchLimits = {
   visits: Math.min(10, MAX_BATCH_ITEMS),
   sightings: MAX_BATCH_ITEMS,
+  weather: MAX_BATCH_ITEMS,
   bodyBytes: MAX_SYNC_BODY_BYTES,
 };
 
@@ -31,7 +32,7 @@ export type OutboxRun = {
 export const SIGN_IN_AGAIN = "Sign in again to send these records.";
 
 function toVisitPayload(v: LocalVisit): VisitPayload {
-  return {
+  const payload: Omit<VisitPayload, "completeList"> = {
     id: v.id,
     transectId: v.transectId,
     visitDate: v.visitDate,
@@ -42,11 +43,12 @@ function toVisitPayload(v: LocalVisit): VisitPayload {
     cloudCoverPercent: v.cloudCoverPercent,
     sky: v.sky,
     coRecorders: v.coRecorders,
-    completeList: v.completeList,
     notes: v.notes,
     submittedAt: v.submittedAt,
     clientUpdatedAt: v.updatedAt,
   };
+  // A submitted walk has its answer (submitVisit asks for it); were it missing, the server would say so.
+  return (v.completeList === null ? payload : { ...payload, completeList: v.completeList }) as VisitPayload;
 }
 
 function toSightingPayload(s: LocalSighting): SightingPayload {
@@ -62,6 +64,17 @@ function toSightingPayload(s: LocalSighting): SightingPayload {
     note: s.note,
     clientUpdatedAt: s.updatedAt,
   };
+}
+
+function toWeatherPayload(w: LocalWeatherMiss): WeatherPayload {
+  return { id: w.id, transectId: w.transectId, reportedOn: w.reportedOn, clientUpdatedAt: w.clientUpdatedAt };
+}
+
+/** This volunteer's weather reports still to send ("sending" too: resending is safe, ids are the phone's). */
+async function pendingWeather(userId: string) {
+  const reports = await phoneStore().weatherMisses.where("ownerId").equals(userId).filter((w) => isWaiting(w.outbox)).toArray();
+  reports.sort((a, b) => a.clientUpdatedAt.localeCompare(b.clientUpdatedAt) || a.id.localeCompare(b.id));
+  return reports.map((w) => encode(w, toWeatherPayload(w)));
 }
 
 /**
@@ -107,20 +120,21 @@ async function readSyncAnswer(response: Response): Promise<SyncAnswer> {
 }
 
 /**
- * One pass of the outbox for the signed-in volunteer: sends their submitted visits with their
- * sightings in batches within the server's limits, then their photos. Items move on-phone ->
+ * One pass of the outbox for the signed-in volunteer: sends their weather reports, then their
+ * submitted visits with their sightings in batches within the server's limits, then their photos. Items move on-phone ->
  * sending -> sent, or to needs-attention with the server's reason. No signal or a server fault
  * leaves everything on the phone and asks for a retry; a 401 keeps everything and asks the
  * volunteer to sign in again.
  */
 export async function runOutbox(userId: string, fetcher: typeof fetch = fetch): Promise<OutboxRun> {
   const run: OutboxRun = { sent: 0, needsAttention: 0, keptOnServer: 0, offline: false, signedOut: false, retryLater: false };
-  const batches = planBatches(await pendingGroups(userId), OUTBOX_LIMITS);
+  // Weather reports first: they are small, and a week's report matters while the week lasts.
+  const batches: OutboxBatch[] = [...weatherBatches(await pendingWeather(userId), OUTBOX_LIMITS), ...planBatches(await pendingGroups(userId), OUTBOX_LIMITS)];
   // Visits that needed attention in an earlier batch: their later sightings wait with them.
   const held = new Set<string>();
   for (const planned of batches) {
     const batch: OutboxBatch = { ...planned, sightings: planned.sightings.filter((s) => !held.has(s.item.visitId)) };
-    if (!batch.visits.length && !batch.sightings.length) continue;
+    if (!batch.visits.length && !batch.sightings.length && !batch.weather?.length) continue;
     if ((await sendBatch(batch, fetcher, run, held)) === "stop") return run;
   }
   await sendPhotos(fetcher, run, userId);
@@ -131,10 +145,13 @@ async function sendBatch(batch: OutboxBatch, fetcher: typeof fetch, run: OutboxR
   const db = phoneStore();
   const visitIds = batch.visits.map((v) => v.item.id);
   const sightingIds = batch.sightings.map((s) => s.item.id);
-  await db.transaction("rw", db.visits, db.sightings, async () => {
+  const weatherIds = (batch.weather ?? []).map((w) => w.item.id);
+  await db.transaction("rw", db.visits, db.sightings, db.weatherMisses, async () => {
     await db.visits.where("id").anyOf(visitIds).modify({ outbox: "sending" });
     await setSightings(sightingIds, { outbox: "sending" });
+    await db.weatherMisses.where("id").anyOf(weatherIds).modify({ outbox: "sending" });
   });
+  const ids = { visitIds, sightingIds, weatherIds };
 
   let answer: SyncAnswer;
   try {
@@ -146,18 +163,18 @@ async function sendBatch(batch: OutboxBatch, fetcher: typeof fetch, run: OutboxR
     });
     answer = await readSyncAnswer(response);
   } catch {
-    await backToPhone(visitIds, sightingIds);
+    await backToPhone(ids);
     run.offline = true;
     run.retryLater = true;
     return "stop";
   }
   switch (answer.kind) {
     case "signed-out":
-      await backToPhone(visitIds, sightingIds, SIGN_IN_AGAIN);
+      await backToPhone(ids, SIGN_IN_AGAIN);
       run.signedOut = true;
       return "stop";
     case "retry":
-      await backToPhone(visitIds, sightingIds, answer.note);
+      await backToPhone(ids, answer.note);
       run.retryLater = true;
       return "stop";
     case "refused":
@@ -169,19 +186,20 @@ async function sendBatch(batch: OutboxBatch, fetcher: typeof fetch, run: OutboxR
   }
 }
 
-export type UnsentOnPhone = { visits: number; sightings: number; photos: number };
+export type UnsentOnPhone = { visits: number; sightings: number; photos: number; weatherReports?: number };
 
 /** What this volunteer has on the phone that the server does not have yet, drafts included. */
 export async function unsentOnPhone(userId: string): Promise<UnsentOnPhone> {
   const db = phoneStore();
   const visits = (await db.visits.toArray()).filter((v) => belongsTo(v, userId));
   const visitIds = visits.map((v) => v.id);
-  const [sightings, photos] = await Promise.all([
+  const [sightings, photos, weatherReports] = await Promise.all([
     db.sightings.where("visitId").anyOf(visitIds).toArray(),
     db.photos.where("visitId").anyOf(visitIds).toArray(),
+    db.weatherMisses.where("ownerId").equals(userId).toArray(),
   ]);
   const unsent = (items: { outbox: OutboxState }[]) => items.filter((i) => i.outbox !== "sent").length;
-  return { visits: unsent(visits), sightings: unsent(sightings), photos: unsent(photos) };
+  return { visits: unsent(visits), sightings: unsent(sightings), photos: unsent(photos), weatherReports: unsent(weatherReports) };
 }
 
 /** The volunteer has read that the server kept its copy; the note can go. */

@@ -28,7 +28,12 @@ export type LocalVisit = {
   cloudCoverPercent: number | null;
   sky: "clear" | "mostly_sunny" | "broken_cloud" | "mostly_cloudy" | "overcast" | null;
   coRecorders: string | null;
-  completeList: boolean;
+  /**
+   * The answer to "Did you record every species you saw?": null until the volunteer answers at the
+   * end of the walk (asked every time, nothing chosen in advance). Walks stored before the
+   * question was asked keep the value they had.
+   */
+  completeList: boolean | null;
   notes: string | null;
   /** Drafts stay on the phone; a submitted visit joins the outbox and can no longer be edited. */
   phase: "draft" | "submitted";
@@ -69,6 +74,25 @@ export type LocalPhoto = {
   attempts: number;
 };
 
+/**
+ * "Not walked this week because of the weather", tapped on the field home. The server files it
+ * under the Monday of `reportedOn`'s week; `weekStart` is that Monday, so the home can show this
+ * week's reports without its own arithmetic. Never edited: it can be taken back while unsent.
+ */
+export type LocalWeatherMiss = {
+  id: string;
+  /** The volunteer who reported it (only theirs are shown and sent). */
+  ownerId: string;
+  transectId: string;
+  /** The phone's local date of the tap, YYYY-MM-DD. */
+  reportedOn: string;
+  weekStart: string;
+  clientUpdatedAt: string;
+  outbox: OutboxState;
+  attention: string | null;
+  attempts: number;
+};
+
 /** Cached server data the field screens need offline (checklist, transects, rules). */
 export type ReferenceEntry = { key: string; value: unknown; savedAt: string };
 export type MetaEntry = { key: string; value: unknown };
@@ -102,6 +126,7 @@ export class PhoneStore extends Dexie {
   visits!: EntityTable<LocalVisit, "id">;
   sightings!: EntityTable<LocalSighting, "id">;
   photos!: EntityTable<LocalPhoto, "id">;
+  weatherMisses!: EntityTable<LocalWeatherMiss, "id">;
   reference!: EntityTable<ReferenceEntry, "key">;
   meta!: EntityTable<MetaEntry, "key">;
 
@@ -127,6 +152,9 @@ export class PhoneStore extends Dexie {
             visit.keptOnServer ??= null;
           }),
       );
+    // Version 3: weather reports. A new table only: every stored walk, record and photo stays as it
+    // was (a walk's completeList keeps its true or false; new walks start with null, not answered).
+    this.version(3).stores({ weatherMisses: "id, ownerId, transectId, weekStart, outbox" });
   }
 }
 

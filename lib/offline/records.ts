@@ -35,7 +35,7 @@ export async function createVisit(input: NewVisit): Promise<string> {
     id,
     ownerId,
     endTime: null,
-    completeList: false,
+    completeList: null, // asked at the end of the walk
     notes: null,
     phase: "draft",
     submittedAt: null,

@@ -1,9 +1,9 @@
 // A stand-in for the field API (sync batches and the photo flow) for the outbox's unit tests.
 // It validates with the real contract (lib/sync/contract.ts), applies the server's size limits,
 // records every write and every answer, and can lose answers or fail on request.
-import { batchStatus, MAX_SYNC_BODY_BYTES, sightingPayload, syncEnvelope, visitPayload, type ItemResult } from "@/lib/sync/contract";
+import { batchStatus, MAX_SYNC_BODY_BYTES, sightingPayload, syncEnvelope, visitPayloadFor, weatherPayload, type ItemResult } from "@/lib/sync/contract";
 
-export type Write = { kind: "visit" | "sighting"; id: string; op: "create" | "update" };
+export type Write = { kind: "visit" | "sighting" | "weather"; id: string; op: "create" | "update" };
 
 export type FakeServerOptions = {
   /** Every request fails as with no signal. */
@@ -25,6 +25,7 @@ const json = (body: unknown, status: number) => new Response(JSON.stringify(body
 export function fakeServer(options: FakeServerOptions = {}) {
   const visits = new Map<string, string>();
   const sightings = new Map<string, string>();
+  const weather = new Map<string, string>();
   const photos = new Set<string>();
   const requests: string[] = [];
   const writes: Write[] = [];
@@ -57,8 +58,9 @@ export function fakeServer(options: FakeServerOptions = {}) {
     const results: ItemResult[] = [];
     const visitsInBatch = new Set<string>();
     envelope.data.visits.forEach((raw, index) => {
-      const parsed = visitPayload.safeParse(raw);
-      if (!parsed.success) return results.push({ kind: "visit", id: null, index, status: "invalid", errors: { _: [parsed.error.issues[0]!.message] } });
+      // The envelope's protocol decides the visit's schema, as on the server (lib/sync/apply-batch.ts).
+      const parsed = visitPayloadFor(envelope.data.protocol).safeParse(raw);
+      if (!parsed.success) return results.push({ kind: "visit", id: null, index, status: "invalid", errors: { [String(parsed.error.issues[0]!.path[0] ?? "_")]: [parsed.error.issues[0]!.message] } });
       if (parsed.data.transectId === options.forbidTransect) return results.push({ kind: "visit", id: parsed.data.id, index, status: "forbidden", reason: "Not your transect." });
       visitsInBatch.add(parsed.data.id);
       results.push(store("visit", visits, parsed.data.id, parsed.data, index));
@@ -71,6 +73,12 @@ export function fakeServer(options: FakeServerOptions = {}) {
         return results.push({ kind: "sighting", id: parsed.data.id, index, status: "invalid", errors: { visitId: ["No such visit."] } });
       }
       results.push(store("sighting", sightings, parsed.data.id, parsed.data, index));
+    });
+    envelope.data.weatherMisses.forEach((raw, index) => {
+      const parsed = weatherPayload.safeParse(raw);
+      if (!parsed.success) return results.push({ kind: "weather", id: null, index, status: "invalid", errors: { reportedOn: [parsed.error.issues[0]!.message] } });
+      if (parsed.data.transectId === options.forbidTransect) return results.push({ kind: "weather", id: parsed.data.id, index, status: "forbidden", reason: "You are not assigned to that transect." });
+      results.push(store("weather", weather, parsed.data.id, parsed.data, index));
     });
     answers.push(results);
     if (toLose > 0) {
@@ -100,5 +108,5 @@ export function fakeServer(options: FakeServerOptions = {}) {
     }
     return new Response("not found", { status: 404 });
   }) as typeof fetch;
-  return { fetcher, visits, sightings, photos, requests, writes, answers, bodies };
+  return { fetcher, visits, sightings, weather, photos, requests, writes, answers, bodies };
 }

@@ -71,10 +71,12 @@ describe("a phone shared by several volunteers", () => {
     const db = new PhoneStore(name);
     setPhoneStore(db);
     await db.open();
-    expect(db.verno).toBe(2);
+    expect(db.verno).toBe(3);
     expect((await db.visits.get(legacyId))?.ownerId).toBeNull();
+    // The walk keeps its complete-list answer from before the question had no default.
+    expect((await db.visits.get(legacyId))?.completeList).toBe(true);
     // Nobody's: not counted as anyone's unsent work, and not sent by whoever syncs first.
-    expect(await unsentOnPhone(alice)).toEqual({ visits: 0, sightings: 0, photos: 0 });
+    expect(await unsentOnPhone(alice)).toEqual({ visits: 0, sightings: 0, photos: 0, weatherReports: 0 });
     const server = fakeServer();
     await runOutbox(alice, server.fetcher);
     await runOutbox(bruno, server.fetcher);
@@ -96,9 +98,9 @@ describe("a phone shared by several volunteers", () => {
     await visitBy(alice, { submit: false, sightings: 2 });
     await visitBy(alice, { sightings: 1, photo: true });
     await visitBy(bruno, { sightings: 4, photo: true });
-    expect(await unsentOnPhone(alice)).toEqual({ visits: 2, sightings: 3, photos: 1 });
+    expect(await unsentOnPhone(alice)).toEqual({ visits: 2, sightings: 3, photos: 1, weatherReports: 0 });
     await runOutbox(alice, fakeServer().fetcher);
-    expect(await unsentOnPhone(alice)).toEqual({ visits: 1, sightings: 2, photos: 0 });
-    expect(await unsentOnPhone(bruno)).toEqual({ visits: 1, sightings: 4, photos: 1 });
+    expect(await unsentOnPhone(alice)).toEqual({ visits: 1, sightings: 2, photos: 0, weatherReports: 0 });
+    expect(await unsentOnPhone(bruno)).toEqual({ visits: 1, sightings: 4, photos: 1, weatherReports: 0 });
   });
 });

@@ -29,6 +29,7 @@ describe("signing out", () => {
     expect(unsentWarning({ visits: 0, sightings: 0, photos: 0 })).toBeNull();
     expect(unsentWarning({ visits: 1, sightings: 0, photos: 0 })).toMatch(/^You have 1 visit not sent yet\. They stay on this phone and will be sent the next time you sign in on it\./);
     expect(unsentWarning({ visits: 2, sightings: 5, photos: 1 })).toMatch(/^You have 2 visits, 5 sightings and 1 photo not sent yet\./);
+    expect(unsentWarning({ visits: 0, sightings: 0, photos: 0, weatherReports: 1 })).toMatch(/^You have 1 weather report not sent yet\./);
   });
 
   it("asks first when the volunteer has unsent items, and stays signed in if they say no", async () => {
