@@ -7,11 +7,12 @@ import type { FieldReference } from "@/lib/offline/reference";
 import { useFieldUserId } from "./field-providers";
 import { OutboxPanel } from "./outbox-panel";
 import { UnownedWalks } from "./unowned-walks";
+import { WeatherReport } from "./weather-report";
 import { useLive } from "./use-live";
 import { useFieldReference } from "./use-reference";
 
 /**
- * The volunteer's home: their transects, walks this phone holds without a known owner, drafts in
+ * The volunteer's home: their transects (each with its one-tap weather report), walks this phone holds without a known owner, drafts in
  * progress, the outbox, the safety notice.
  */
 export function FieldHome({ firstName, initial }: { firstName: string; initial?: FieldReference }) {
@@ -64,6 +65,7 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
                   )}
                 </p>
                 <a className="btn-primary mt-3 min-w-tap w-full" href={`/field/visit?transect=${t.id}`}>Start a visit</a>
+                <WeatherReport transectId={t.id} transectCode={t.code} seasons={data.seasons} />
               </li>
             );
           })}

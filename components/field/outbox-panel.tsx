@@ -3,6 +3,7 @@
 import { useEffect, useState, useSyncExternalStore } from "react";
 import { belongsTo, phoneStore, type KeptOnServer, type OutboxState } from "@/lib/offline/phone-store";
 import { onSyncState, syncNow } from "@/lib/offline/sync-controller";
+import { withdrawWeatherMiss } from "@/lib/offline/weather";
 import { useFieldUserId } from "./field-providers";
 import { useLive } from "./use-live";
 
@@ -58,15 +59,20 @@ export function OutboxPanel() {
       .filter((v) => belongsTo(v, userId))
       .sort((a, b) => b.visitDate.localeCompare(a.visitDate));
     const ids = visits.map((v) => v.id);
-    const [sightings, photos] = await Promise.all([db.sightings.where("visitId").anyOf(ids).toArray(), db.photos.where("visitId").anyOf(ids).toArray()]);
-    return { visits, sightings, photos };
+    const [sightings, photos, weather] = await Promise.all([
+      db.sightings.where("visitId").anyOf(ids).toArray(),
+      db.photos.where("visitId").anyOf(ids).toArray(),
+      userId ? db.weatherMisses.where("ownerId").equals(userId).toArray() : [],
+    ]);
+    return { visits, sightings, photos, weather };
   }, [userId]);
 
-  const all = items ? [...items.visits, ...items.sightings, ...items.photos] : [];
+  const all = items ? [...items.visits, ...items.sightings, ...items.photos, ...items.weather] : [];
   const count = (state: OutboxState) => all.filter((i) => i.outbox === state).length;
   const waiting = count("on-phone") + count("sending");
   const visitDate = (visitId: string) => items?.visits.find((v) => v.id === visitId)?.visitDate ?? "";
   const refusedPhotos = items?.photos.filter((p) => p.outbox === "needs-attention") ?? [];
+  const refusedWeather = items?.weather.filter((w) => w.outbox === "needs-attention") ?? [];
   const keptNotes = items?.visits.filter((v) => v.keptOnServer && (v.keptOnServer.visit || v.keptOnServer.sightings > 0)) ?? [];
 
   return (
@@ -116,6 +122,18 @@ export function OutboxPanel() {
                   if (window.confirm("Remove this photo from this phone? The server will not take it.")) void removeRefusedPhoto(p.id);
                 }}
               >
+                Remove it from this phone
+              </button>
+            </li>
+          ))}
+        </ul>
+      )}
+      {refusedWeather.length > 0 && (
+        <ul className="mt-3 space-y-2" aria-label="Weather reports the server refused">
+          {refusedWeather.map((w) => (
+            <li key={w.id} className="rounded-lg border border-rust-700 bg-rust-100 p-2 text-sm text-rust-700" data-testid="refused-weather">
+              Weather report for the week of {w.weekStart}: {w.attention}{" "}
+              <button type="button" className="inline-flex min-h-tap items-center font-bold underline" onClick={() => void withdrawWeatherMiss(w.id)}>
                 Remove it from this phone
               </button>
             </li>

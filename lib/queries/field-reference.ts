@@ -3,17 +3,20 @@ import { and, asc, eq, inArray, ne, or, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { sightings, species, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
+import { phaseOf, takesFieldWalks } from "@/lib/seasons/rules";
 import { assignedTransects } from "./field";
 import { networkSettingsRow } from "./network";
 import { safetyAcceptedAt } from "./safety";
+import { listSeasons, seasonGraceDays } from "./seasons";
 
 /**
  * Everything the field screens need to work with no signal, in one answer the phone caches:
  * the volunteer's transects, the checklist, what was seen on each transect before, the
- * network's conditions rules, and whether this volunteer has acknowledged the safety notice.
+ * network's conditions rules, the seasons that take walks now (so the phone offers only their
+ * dates), and whether this volunteer has acknowledged the safety notice.
  */
 export async function fieldReference(actor: Actor) {
-  const [{ season, transects }, checklist, settings, acceptedAt] = await Promise.all([
+  const [{ season, transects }, checklist, settings, acceptedAt, allSeasons, graceDays] = await Promise.all([
     assignedTransects(actor),
     db()
       .select({
@@ -28,7 +31,10 @@ export async function fieldReference(actor: Actor) {
       .orderBy(asc(species.sortOrder), asc(species.vernacularName)),
     networkSettingsRow(),
     safetyAcceptedAt(actor),
+    listSeasons(),
+    seasonGraceDays(),
   ]);
+  const now = new Date();
   const ids = transects.map((t) => t.id);
   // "Seen here before" reaches every phone on the transect, so it holds only what a checker
   // accepted, and a sensitive species only where this volunteer recorded it (not rejected):
@@ -50,6 +56,14 @@ export async function fieldReference(actor: Actor) {
   for (const row of seen.sort((a, b) => b.n - a.n)) (seenByTransect[row.transectId] ??= []).push(row.speciesId);
   return {
     season: season ? { id: season.id, name: season.name, startsOn: season.startsOn, endsOn: season.endsOn, targetVisits: season.targetVisits } : null,
+    /**
+     * Seasons that take walks now, oldest first: open, or closed and in their grace period. The
+     * start form's dates stay inside them; weather reports need an open one.
+     */
+    seasons: allSeasons
+      .map((s) => ({ name: s.name, startsOn: s.startsOn, endsOn: s.endsOn, phase: phaseOf(s, graceDays, now) }))
+      .filter((s) => takesFieldWalks(s.phase))
+      .sort((a, b) => a.startsOn.localeCompare(b.startsOn)),
     transects,
     checklist,
     seenByTransect,

@@ -24,6 +24,7 @@ export function fieldReference(): FieldReference {
   });
   return {
     season: { id: "5e0b1d6c-7a24-4e3d-9c44-4e1a2b3c4d5e", name: "Summer 2026", startsOn: "2026-04-01", endsOn: "2026-09-30", targetVisits: 20 },
+    seasons: [{ name: "Summer 2026", startsOn: "2026-04-01", endsOn: "2026-09-30", phase: "open" }],
     transects: [transect(transectA, "DUN-01", "North dunes", 8, true), transect(transectB, "DUN-02", "South slack", 4, false)],
     checklist: [
       { id: meadowBrown, scientificName: "Maniola jurtina", vernacularName: "Meadow Brown", taxonRank: "species", sensitive: false, activeMonths: null },
