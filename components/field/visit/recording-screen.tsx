@@ -3,6 +3,7 @@
 import { lazy, Suspense, useState } from "react";
 import { beaufortScale } from "@/lib/field/beaufort";
 import type { ConditionsRules } from "@/lib/field/conditions";
+import type { FieldSeason } from "@/lib/field/season-dates";
 import type { ChecklistEntry } from "@/lib/field/species-search";
 import { timeNow } from "@/lib/field/clock";
 import { belongsTo, phoneStore, type LocalSighting } from "@/lib/offline/phone-store";
@@ -29,6 +30,7 @@ export function RecordingScreen({
   checklist,
   seenByTransect,
   rules,
+  seasons,
 }: {
   visitId: string;
   /** From the address, so the heading renders on the server before the phone's store is read. */
@@ -37,6 +39,8 @@ export function RecordingScreen({
   checklist: ChecklistEntry[];
   seenByTransect: Record<string, string[]>;
   rules: ConditionsRules;
+  /** The seasons taking walks now, from the reference data (the details form keeps its date inside them). */
+  seasons?: readonly FieldSeason[];
 }) {
   const userId = useFieldUserId();
   const data = useLive(async () => {
@@ -171,6 +175,7 @@ export function RecordingScreen({
               transects={transects}
               transectId={visit.transectId}
               rules={rules}
+              seasons={seasons}
               visit={visit}
               onCancel={() => setEditingDetails(false)}
               onSaved={(id, transectId) => {

@@ -5,6 +5,7 @@ import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { beaufortScale } from "@/lib/field/beaufort";
 import { conditionWarnings, type ConditionsRules } from "@/lib/field/conditions";
+import { fieldDateBounds, fieldDateProblem, NO_SEASON_TAKES_WALKS, type FieldSeason } from "@/lib/field/season-dates";
 import { skyLabel, startVisitSchema, timeNow, todayLocal, type StartVisitInput, type StartVisitValues } from "@/lib/field/visit-form";
 import type { LocalVisit } from "@/lib/offline/phone-store";
 import { createVisit, updateVisit } from "@/lib/offline/records";
@@ -32,12 +33,15 @@ function startingValues(transects: Transect[], transectId: string, visit?: Local
 
 /**
  * Starts a visit, or with `visit` corrects one already on the phone (a draft, or one the server
- * sent back): every field of the start of the walk can be changed.
+ * sent back): every field of the start of the walk can be changed. The date stays inside the
+ * seasons taking walks that the phone knows of (`seasons`; absent in a copy saved before the
+ * server sent them, when the server's own check is the only one).
  */
 export function StartVisitForm({
   transects,
   transectId,
   rules,
+  seasons,
   visit,
   onSaved,
   onCancel,
@@ -45,12 +49,15 @@ export function StartVisitForm({
   transects: Transect[];
   transectId: string;
   rules: ConditionsRules;
+  seasons?: readonly FieldSeason[];
   visit?: LocalVisit;
   onSaved: (visitId: string, transectId: string) => void;
   onCancel?: () => void;
 }) {
   const [saveError, setSaveError] = useState<string | null>(null);
-  const { register, handleSubmit, control, formState: { errors, isSubmitting } } = useForm<StartVisitInput, unknown, StartVisitValues>({
+  const today = todayLocal();
+  const bounds = seasons ? fieldDateBounds(seasons, today) : null;
+  const { register, handleSubmit, control, setError, formState: { errors, isSubmitting } } = useForm<StartVisitInput, unknown, StartVisitValues>({
     resolver: zodResolver(startVisitSchema),
     defaultValues: startingValues(transects, transectId, visit) as unknown as StartVisitInput,
   });
@@ -64,6 +71,8 @@ export function StartVisitForm({
 
   const onSubmit = handleSubmit(async (values) => {
     setSaveError(null);
+    const dateProblem = seasons ? fieldDateProblem(values.visitDate, seasons, today) : null;
+    if (dateProblem) return setError("visitDate", { message: dateProblem }, { shouldFocus: true });
     const fields = {
       transectId: values.transectId,
       visitDate: values.visitDate,
@@ -89,6 +98,7 @@ export function StartVisitForm({
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       {visit ? <h2 className="text-xl font-bold text-tideline-800">Correct the visit details</h2> : <h1 className="text-2xl font-bold text-tideline-800">Start a visit</h1>}
       {saveError && <p role="alert" className="font-bold text-rust-700">{saveError}</p>}
+      {seasons && !bounds && <p role="alert" className="font-bold text-rust-700">{NO_SEASON_TAKES_WALKS}</p>}
       <div>
         <label htmlFor="transectId" className="field-label">Transect</label>
         <select id="transectId" className="field-input" {...register("transectId")}>
@@ -103,7 +113,17 @@ export function StartVisitForm({
       <div className="grid grid-cols-2 gap-3">
         <div>
           <label htmlFor="visitDate" className="field-label">Date</label>
-          <input id="visitDate" type="date" className="field-input" {...register("visitDate")} />
+          <input
+            id="visitDate"
+            type="date"
+            className="field-input"
+            min={bounds?.min}
+            max={bounds?.max}
+            aria-describedby={bounds ? "visitDate-range" : undefined}
+            aria-invalid={errors.visitDate ? true : undefined}
+            {...register("visitDate")}
+          />
+          {bounds && <p id="visitDate-range" className="mt-1 text-sm text-shingle-600">{bounds.min} to {bounds.max}</p>}
           {err("visitDate")}
         </div>
         <div>

@@ -23,7 +23,7 @@ export function VisitScreen({ initial }: { initial?: FieldReference }) {
   if (!data) return <p>Loading…</p>;
 
   if (visitId) {
-    return <RecordingScreen visitId={visitId} transectHint={params.get("transect")} transects={data.transects} checklist={data.checklist} seenByTransect={data.seenByTransect} rules={data.rules} />;
+    return <RecordingScreen visitId={visitId} transectHint={params.get("transect")} transects={data.transects} checklist={data.checklist} seenByTransect={data.seenByTransect} rules={data.rules} seasons={data.seasons} />;
   }
   const transectId = params.get("transect") ?? data.transects[0]?.id;
   if (!transectId) return <p className="card">You have no transects to record on yet. Your network organiser assigns them.</p>;
@@ -33,6 +33,7 @@ export function VisitScreen({ initial }: { initial?: FieldReference }) {
         transects={data.transects}
         transectId={transectId}
         rules={data.rules}
+        seasons={data.seasons}
         onSaved={(id, startedOn) => {
           // Stay on this page (no request needed offline) but make a reload reopen the visit.
           window.history.replaceState(null, "", visitHref(id, startedOn));
