@@ -147,6 +147,8 @@ export async function deleteDraftVisit(visitId: string): Promise<void> {
 export async function submitVisit(visitId: string, finish: { endTime: string; completeList: boolean; notes: string | null }): Promise<void> {
   const db = phoneStore();
   const visit = await editableVisit(visitId);
+  // Comparisons use complete lists only, so a walk never leaves without the volunteer's answer.
+  if (typeof finish.completeList !== "boolean") throw new Error("Say whether you recorded every species you saw.");
   if (finish.endTime < visit.startTime) throw new Error("The end time is before the start time.");
   const at = now();
   await db.transaction("rw", db.visits, db.sightings, db.photos, async () => {

@@ -135,6 +135,38 @@ describe("recording screen", () => {
     expect(syncNow).toHaveBeenCalled();
   });
 
+  it("asks at every finish whether every species was recorded, with no answer chosen in advance, and submits only once answered", async () => {
+    const visitId = await createVisit({ transectId: transectA, visitDate: "2026-07-02", startTime: "10:30", temperatureC: null, windBeaufort: null, cloudCoverPercent: null, sky: null, coRecorders: null });
+    expect((await phoneStore().visits.get(visitId))!.completeList).toBeNull();
+    renderScreen(visitId);
+    fireEvent.click(await screen.findByRole("button", { name: "Finish the walk" }));
+    const question = screen.getByRole("group", { name: "Did you record every species you saw?" });
+    const yes = within(question).getByRole("radio", { name: "Yes, every species I could identify" });
+    const no = within(question).getByRole("radio", { name: "No, only some of them" });
+    expect(yes).not.toBeChecked();
+    expect(no).not.toBeChecked();
+    // The review step names each of the three states.
+    expect(screen.getByText(/^Review:/)).toHaveTextContent("complete list not answered yet");
+
+    fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
+    expect(await screen.findByRole("alert")).toHaveTextContent("Answer whether you recorded every species you saw before submitting.");
+    expect(await phoneStore().visits.get(visitId)).toMatchObject({ phase: "draft", completeList: null });
+
+    fireEvent.click(no);
+    expect(screen.getByText(/^Review:/)).toHaveTextContent("not a complete list");
+    fireEvent.click(yes);
+    expect(screen.getByText(/^Review:/)).toHaveTextContent(/, complete list\.$/);
+    // Going back and finishing again asks afresh.
+    fireEvent.click(screen.getByRole("button", { name: "Back" }));
+    fireEvent.click(screen.getByRole("button", { name: "Finish the walk" }));
+    expect(screen.getByRole("radio", { name: "Yes, every species I could identify" })).not.toBeChecked();
+    fireEvent.click(screen.getByRole("radio", { name: "Yes, every species I could identify" }));
+    fireEvent.change(screen.getByLabelText("End time"), { target: { value: "11:30" } });
+    fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
+    await screen.findByTestId("visit-submitted");
+    expect(await phoneStore().visits.get(visitId)).toMatchObject({ phase: "submitted", completeList: true });
+  });
+
   it("refuses a corrected start time after the recorded end time", async () => {
     const visitId = await visitWithSightings();
     await submitVisit(visitId, { endTime: "11:45", completeList: false, notes: null });
