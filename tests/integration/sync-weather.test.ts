@@ -77,6 +77,22 @@ describe("weather reports and complete lists through the sync", () => {
     expect(stolen.response.results[0]).toMatchObject({ status: "forbidden" });
   });
 
+  it("lands good reports beside bad ones in one batch with walks, each bad one with its field's message", async () => {
+    const good = report(transectId, today());
+    const walk = { id: randomUUID(), transectId, visitDate: today(), startTime: "10:00", endTime: "11:00", completeList: true, submittedAt: new Date().toISOString(), clientUpdatedAt: new Date().toISOString() };
+    const { status, response } = await applySyncBatch(actor, {
+      protocol: 2,
+      visits: [walk],
+      weatherMisses: [report(transectId, "14/05/2026"), good, { id: randomUUID(), transectId: "nope", reportedOn: today(), clientUpdatedAt: new Date().toISOString() }],
+    });
+    expect(status).toBe(400);
+    expect(response.results.map((r) => [r.kind, r.index, r.status])).toEqual([["visit", 0, "created"], ["weather", 0, "invalid"], ["weather", 1, "created"], ["weather", 2, "invalid"]]);
+    expect(response.results[1]!.errors?.reportedOn?.[0]).toBe("Use a date like 2026-05-14.");
+    expect(response.results[3]!.errors?.transectId?.[0]).toBe("Choose a transect.");
+    expect(await db().select().from(weatherMisses).where(eq(weatherMisses.id, good.id))).toHaveLength(1);
+    expect(await db().select().from(visits).where(eq(visits.id, walk.id))).toHaveLength(1);
+  });
+
   it("from protocol 2 a submitted walk must say whether its list is complete; an older phone's walk keeps the old default (no)", async () => {
     const walk = (over: Record<string, unknown>) => ({ id: randomUUID(), transectId, visitDate: today(), startTime: "10:00", endTime: "11:00", submittedAt: new Date().toISOString(), clientUpdatedAt: new Date().toISOString(), ...over });
     const unanswered = walk({});
