@@ -2,11 +2,12 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { beforeEach, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { seasons, sightings, species, transectAssignments, transects, users, visitSummaries, visits } from "@/db/schema";
+import { seasons, sightings, species, transectAssignments, transects, visitSummaries, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { mergeEntries } from "@/lib/queries/checklist-merge";
 import { importSeason, previewSeasonImport } from "@/lib/queries/season-import";
 import { applySyncBatch } from "@/lib/sync/apply-batch";
+import { actorFor } from "./support/actors";
 import { resetToDemo } from "./support/db";
 
 // visit_summaries (drizzle/0007) must always equal counting each walk's sightings by status. Each
@@ -29,11 +30,6 @@ async function drift() {
 async function summaryOf(visitId: string) {
   const [row] = await db().select().from(visitSummaries).where(eq(visitSummaries.visitId, visitId));
   return row ? { pending: row.pending, queried: row.queried, accepted: row.accepted, rejected: row.rejected } : null;
-}
-
-async function actorFor(email: string): Promise<Actor> {
-  const [u] = await db().select().from(users).where(eq(users.email, email));
-  return { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
 }
 
 describe("each walk's sightings summary", () => {

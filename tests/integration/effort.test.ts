@@ -1,19 +1,15 @@
 import { and, eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { seasons, transects, users } from "@/db/schema";
+import { seasons, transects } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { daysBetween, mondayOf, weekStartsBetween } from "@/lib/effort/weeks";
 import { networkHome, type NetworkHome } from "@/lib/queries/effort";
+import { actorFor } from "./support/actors";
 import { resetToDemo } from "./support/db";
 
 // The organiser's home on the demo network, checked against counts made here straight from the
 // tables (not through visit_summaries).
-
-async function actorFor(email: string): Promise<Actor> {
-  const [u] = await db().select().from(users).where(eq(users.email, email));
-  return { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
-}
 
 describe("the organiser's home on the demo network", () => {
   let home: NetworkHome;

@@ -2,9 +2,10 @@ import { randomUUID } from "node:crypto";
 import { asc, eq, ne } from "drizzle-orm";
 import { beforeEach, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { seasons, transectAssignments, users, visits, weatherMisses } from "@/db/schema";
+import { seasons, transectAssignments, visits, weatherMisses } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { applySyncBatch } from "@/lib/sync/apply-batch";
+import { actorFor } from "./support/actors";
 import { resetToDemo } from "./support/db";
 
 // "Not walked this week because of the weather" through the sync, and protocol 2's rule that a
@@ -16,11 +17,6 @@ const today = () => new Date().toISOString().slice(0, 10);
 const addDays = (day: string, n: number) => new Date(Date.parse(`${day}T00:00:00Z`) + n * DAY).toISOString().slice(0, 10);
 const report = (transectId: string, reportedOn: string, over: Record<string, unknown> = {}) => ({ id: randomUUID(), transectId, reportedOn, clientUpdatedAt: new Date().toISOString(), ...over });
 
-async function actorOf(email: string): Promise<Actor> {
-  const [u] = await db().select().from(users).where(eq(users.email, email));
-  return { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
-}
-
 describe("weather reports and complete lists through the sync", () => {
   let actor: Actor;
   let transectId: string;
@@ -28,7 +24,7 @@ describe("weather reports and complete lists through the sync", () => {
 
   beforeEach(async () => {
     await resetToDemo();
-    actor = await actorOf("volunteer01@harrowmere.example");
+    actor = await actorFor("volunteer01@harrowmere.example");
     const [mine] = await db().select().from(transectAssignments).where(eq(transectAssignments.userId, actor.id)).orderBy(asc(transectAssignments.transectId)).limit(1);
     transectId = mine!.transectId;
     const mineAll = (await db().select().from(transectAssignments).where(eq(transectAssignments.userId, actor.id))).map((a) => a.transectId);
@@ -71,7 +67,7 @@ describe("weather reports and complete lists through the sync", () => {
 
     const mine = report(transectId, today());
     await applySyncBatch(actor, { protocol: 2, weatherMisses: [mine] });
-    const other = await actorOf("volunteer02@harrowmere.example");
+    const other = await actorFor("volunteer02@harrowmere.example");
     const [theirTransect] = await db().select().from(transectAssignments).where(eq(transectAssignments.userId, other.id)).limit(1);
     const stolen = await applySyncBatch(other, { protocol: 2, weatherMisses: [{ ...mine, transectId: theirTransect!.transectId }] });
     expect(stolen.response.results[0]).toMatchObject({ status: "forbidden" });

@@ -2,17 +2,14 @@ import { randomUUID } from "node:crypto";
 import { HeadObjectCommand, ListObjectsV2Command } from "@aws-sdk/client-s3";
 import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
-import { photos, users } from "@/db/schema";
+import { photos } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { requestUploadTicket } from "@/lib/photos/tickets";
 import { photoBucket, s3 } from "@/lib/storage/s3";
 
-// Steps 1 and 2 of the photo flow as a phone takes them, and what the store and the row hold.
+export { actorFor } from "./actors";
 
-export async function actorFor(email: string): Promise<Actor> {
-  const [u] = await db().select().from(users).where(eq(users.email, email));
-  return { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
-}
+// Steps 1 and 2 of the photo flow as a phone takes them, and what the store and the row hold.
 
 export async function objectExists(key: string): Promise<boolean> {
   try {
