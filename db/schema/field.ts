@@ -1,12 +1,13 @@
 import { sql } from "drizzle-orm";
 import { boolean, check, date, doublePrecision, index, integer, pgEnum, pgTable, smallint, text, time, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
-import { BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SECTIONS, SIGHTING_COUNT, TEMPERATURE_C } from "../../lib/limits/counts";
+import { BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SECTIONS, SIGHTING_COUNT, SUNSHINE_PERCENT, TEMPERATURE_C } from "../../lib/limits/counts";
 import { literal } from "./check-sql";
 import { users } from "./people";
 import { seasonImports, seasons, transects } from "./sites";
 import { species } from "./taxa";
 
 export const skyEnum = pgEnum("sky", ["clear", "mostly_sunny", "broken_cloud", "mostly_cloudy", "overcast"]);
+export const rainEnum = pgEnum("rain", ["none", "light", "heavy"]);
 
 /** A walk of one transect on one day. The id is generated on the phone, so resends are idempotent. */
 export const visits = pgTable(
@@ -23,6 +24,12 @@ export const visits = pgTable(
     windBeaufort: smallint("wind_beaufort"),
     cloudCoverPercent: smallint("cloud_cover_percent"),
     sky: skyEnum("sky"),
+    // Share of the walk in sunshine, and rain during it: optional, older phones do not send them.
+    sunshinePercent: smallint("sunshine_percent"),
+    rain: rainEnum("rain"),
+    // The network's walk rules this walk broke (lib/review/walk-rules.ts), kept by a trigger
+    // (drizzle/0008) from the walk's conditions and network_settings.walk_rules.
+    ruleBreaches: text("rule_breaches").array().notNull().default(sql`'{}'::text[]`),
     coRecorders: text("co_recorders"),
     // Absences are inferred only from complete lists.
     completeList: boolean("complete_list").notNull().default(false),
@@ -42,6 +49,8 @@ export const visits = pgTable(
     index("visits_season_idx").on(t.seasonId),
     index("visits_import_idx").on(t.importId),
     check("visits_wind_beaufort", sql`${t.windBeaufort} is null or ${t.windBeaufort} between ${literal(BEAUFORT_FORCE.min)} and ${literal(BEAUFORT_FORCE.max)}`),
+    check("visits_sunshine_percent", sql`${t.sunshinePercent} is null or ${t.sunshinePercent} between ${literal(SUNSHINE_PERCENT.min)} and ${literal(SUNSHINE_PERCENT.max)}`),
+    index("visits_rule_breaches_idx").on(t.id).where(sql`cardinality(${t.ruleBreaches}) > 0`),
     check("visits_cloud_percent", sql`${t.cloudCoverPercent} is null or ${t.cloudCoverPercent} between ${literal(CLOUD_COVER_PERCENT.min)} and ${literal(CLOUD_COVER_PERCENT.max)}`),
     check("visits_temperature_plausible", sql`${t.temperatureC} is null or ${t.temperatureC} between ${literal(TEMPERATURE_C.min)} and ${literal(TEMPERATURE_C.max)}`),
     check("visits_times_ordered", sql`${t.endTime} is null or ${t.endTime} >= ${t.startTime}`),
@@ -88,6 +97,11 @@ export const sightings = pgTable(
     status: sightingStatusEnum("status").notNull().default("pending"),
     reviewedById: uuid("reviewed_by_id").references(() => users.id, { onDelete: "set null" }),
     reviewedAt: timestamp("reviewed_at", { withTimezone: true }),
+    // Raised by a trigger on every change a person makes (drizzle/0008): two reviewers acting on
+    // one sighting compare it with the revision they were shown.
+    revision: integer("revision").notNull().default(1),
+    // What a reviewer should look at (lib/review/warnings.ts), kept by triggers (drizzle/0008).
+    warnings: text("warnings").array().notNull().default(sql`'{}'::text[]`),
     clientUpdatedAt: timestamp("client_updated_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
@@ -96,6 +110,7 @@ export const sightings = pgTable(
     index("sightings_visit_idx").on(t.visitId),
     index("sightings_species_idx").on(t.speciesId),
     index("sightings_status_idx").on(t.status),
+    index("sightings_warnings_idx").using("gin", t.warnings),
     check("sightings_count_nonnegative", sql`${t.count} >= ${literal(SIGHTING_COUNT.min)}`),
     check("sightings_section_positive", sql`${t.section} is null or ${t.section} >= ${literal(SECTIONS.min)}`),
     check("sightings_latitude", sql`${t.latitude} is null or ${t.latitude} between -90 and 90`),

@@ -1,7 +1,8 @@
 import { sql } from "drizzle-orm";
-import { boolean, index, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, integer, check } from "drizzle-orm/pg-core";
+import { boolean, index, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, integer, check } from "drizzle-orm/pg-core";
 import { RECORD_LICENCES } from "../../lib/agreement/licences";
-import { BEAUFORT_FORCE } from "../../lib/limits/counts";
+import { DEFAULT_WALK_RULES, type WalkRules } from "../../lib/review/walk-rules";
+import { DEFAULT_WARNING_RULES, type WarningRules } from "../../lib/review/warning-rules";
 import { DEFAULT_SEASON_GRACE_DAYS, SEASON_GRACE_DAYS } from "../../lib/limits/seasons";
 import { literal } from "./check-sql";
 
@@ -132,11 +133,11 @@ export const networkSettings = pgTable(
     id: integer("id").primaryKey().default(1),
     name: text("name").notNull(),
     taxonGroup: text("taxon_group").notNull(),
-    // Conditions rules: breaking them warns the volunteer, never blocks a visit.
-    minTemperatureC: integer("min_temperature_c"),
-    maxWindBeaufort: integer("max_wind_beaufort"),
-    earliestStartTime: text("earliest_start_time"),
-    latestStartTime: text("latest_start_time"),
+    // The walk rules (lib/review/walk-rules.ts): breaking one warns the volunteer and marks the
+    // walk for reviewers, never refuses it. Validated by its zod schema on every write.
+    walkRules: jsonb("walk_rules").$type<WalkRules>().notNull().default(DEFAULT_WALK_RULES),
+    // Thresholds of the sightings' warnings (lib/review/warning-rules.ts).
+    warningRules: jsonb("warning_rules").$type<WarningRules>().notNull().default(DEFAULT_WARNING_RULES),
     contactEmail: text("contact_email"),
     // Days after a season closes during which walks may still be entered and checked.
     seasonGraceDays: integer("season_grace_days").notNull().default(DEFAULT_SEASON_GRACE_DAYS),
@@ -144,7 +145,6 @@ export const networkSettings = pgTable(
   },
   (t) => [
     check("network_settings_singleton", sql`${t.id} = 1`),
-    check("network_settings_wind", sql`${t.maxWindBeaufort} is null or ${t.maxWindBeaufort} between ${literal(BEAUFORT_FORCE.min)} and ${literal(BEAUFORT_FORCE.max)}`),
     check("network_settings_grace_days", sql`${t.seasonGraceDays} between ${literal(SEASON_GRACE_DAYS.min)} and ${literal(SEASON_GRACE_DAYS.max)}`),
   ],
 );

@@ -8,11 +8,7 @@ import type { LineString } from "../schema/sites";
 export const demoNetwork = {
   name: "Harrowmere Valley Butterfly Transects",
   taxonGroup: "butterflies",
-  // Usual butterfly-transect conditions (common practice, from memory): at least 13 °C, wind force 5 or less.
-  minTemperatureC: 13,
-  maxWindBeaufort: 5,
-  earliestStartTime: "10:00",
-  latestStartTime: "16:30",
+  // The walk rules and warning thresholds are the settings' defaults (lib/review/*-rules.ts).
   contactEmail: "organiser@harrowmere.example",
 };
 

@@ -1,26 +1,36 @@
-export type ConditionsRules = {
-  minTemperatureC: number | null;
-  maxWindBeaufort: number | null;
-  earliestStartTime: string | null;
-  latestStartTime: string | null;
-};
+import { walkRuleBreaches, walkRulesSchema, type WalkBreach, type WalkConditions, type WalkRules } from "@/lib/review/walk-rules";
 
-export type Conditions = { temperatureC: number | null; windBeaufort: number | null; startTime: string | null };
+export type ConditionsRules = WalkRules;
+export type Conditions = Partial<WalkConditions>;
 
-/** The network's conditions rules are advice: breaking one warns, it never blocks a visit. */
-export function conditionWarnings(rules: ConditionsRules, c: Conditions): string[] {
-  const warnings: string[] = [];
-  if (rules.minTemperatureC != null && c.temperatureC != null && c.temperatureC < rules.minTemperatureC) {
-    warnings.push(`It is below ${rules.minTemperatureC} °C: counts may be low and not comparable with other walks.`);
+function advice(rules: WalkRules, breach: WalkBreach): string {
+  switch (breach) {
+    case "outside_hours":
+      return `The network's walks are made between ${rules.windowStart} and ${rules.windowEnd}.`;
+    case "too_cool":
+      return `Cooler than the walk rules (at least ${rules.coolMinimumC} °C with ${rules.coolSunshinePercent} % sunshine, or ${rules.warmEnoughC} °C): counts may be low and not comparable with other walks.`;
+    case "too_windy":
+      return `Wind above force ${rules.maxWindBeaufort}: the network's walks are made in lighter wind.`;
+    case "rain":
+      return "The network's walks are made without rain.";
   }
-  if (rules.maxWindBeaufort != null && c.windBeaufort != null && c.windBeaufort > rules.maxWindBeaufort) {
-    warnings.push(`Wind above force ${rules.maxWindBeaufort}: the network's walks are usually made in lighter wind.`);
-  }
-  if (c.startTime && rules.earliestStartTime && c.startTime < rules.earliestStartTime) {
-    warnings.push(`Walks usually start after ${rules.earliestStartTime}.`);
-  }
-  if (c.startTime && rules.latestStartTime && c.startTime > rules.latestStartTime) {
-    warnings.push(`Walks usually start before ${rules.latestStartTime}.`);
-  }
-  return warnings;
+}
+
+/**
+ * The network's walk rules are advice: breaking one warns, it never blocks a walk (reviewers see
+ * the same rules on the walk). A reference cached before the walk rules came has rules of another
+ * shape: it warns of nothing until the phone next refreshes it.
+ */
+export function conditionWarnings(rules: unknown, c: Conditions): string[] {
+  const parsed = walkRulesSchema.safeParse(rules);
+  if (!parsed.success) return [];
+  const walk: WalkConditions = {
+    startTime: c.startTime ?? null,
+    endTime: c.endTime ?? null,
+    temperatureC: c.temperatureC ?? null,
+    sunshinePercent: c.sunshinePercent ?? null,
+    windBeaufort: c.windBeaufort ?? null,
+    rain: c.rain ?? null,
+  };
+  return walkRuleBreaches(parsed.data, walk).map((b) => advice(parsed.data, b));
 }

@@ -17,6 +17,9 @@ export const BEAUFORT_FORCE: Range = { min: 0, max: 12 };
 /** Cloud cover in whole percent. */
 export const CLOUD_COVER_PERCENT: Range = { min: 0, max: 100 };
 
+/** Share of a walk spent in sunshine, in whole percent. */
+export const SUNSHINE_PERCENT: Range = { min: 0, max: 100 };
+
 /** Air temperature in °C: wider than any walk's weather, narrow enough to catch a slip. Our choice. */
 export const TEMPERATURE_C: Range = { min: -40, max: 60 };
 

@@ -6,6 +6,7 @@ import type { Actor } from "@/lib/auth/guard";
 import { phaseOf, takesFieldWalks } from "@/lib/seasons/rules";
 import { assignedTransects } from "./field";
 import { networkSettingsRow } from "./network";
+import { DEFAULT_WALK_RULES } from "@/lib/review/walk-rules";
 import { safetyAcceptedAt } from "./safety";
 import { listSeasons, seasonGraceDays } from "./seasons";
 
@@ -67,12 +68,8 @@ export async function fieldReference(actor: Actor) {
     transects,
     checklist,
     seenByTransect,
-    rules: {
-      minTemperatureC: settings?.minTemperatureC ?? null,
-      maxWindBeaufort: settings?.maxWindBeaufort ?? null,
-      earliestStartTime: settings?.earliestStartTime ?? null,
-      latestStartTime: settings?.latestStartTime ?? null,
-    },
+    /** The network's walk rules (lib/review/walk-rules.ts): the start form warns when one is broken. */
+    rules: settings?.walkRules ?? DEFAULT_WALK_RULES,
     /** When this volunteer acknowledged the safety notice (the field screens ask until they have). */
     safetyAcceptedAt: acceptedAt?.toISOString() ?? null,
     savedAt: new Date().toISOString(),
