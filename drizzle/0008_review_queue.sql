@@ -105,8 +105,8 @@ BEGIN
   END IF;
   RETURN out;
 END $$;--> statement-breakpoint
--- Before a sighting is written: its warnings, and its revision raised on any change a person
--- made (a write of the warnings alone, by the refreshes below, leaves the revision).
+-- Before a sighting is written: its warnings, and its revision and updated_at raised on any
+-- change a person made (a write of the warnings alone, by the refreshes below, leaves both).
 CREATE FUNCTION "sightings_review_columns"() RETURNS trigger LANGUAGE plpgsql AS $$
 BEGIN
   IF TG_OP = 'INSERT' OR (NEW."visit_id", NEW."species_id", NEW."count") IS DISTINCT FROM (OLD."visit_id", OLD."species_id", OLD."count") THEN
@@ -115,6 +115,8 @@ BEGIN
   IF TG_OP = 'UPDATE' AND (NEW."visit_id", NEW."species_id", NEW."count", NEW."section", NEW."latitude", NEW."longitude", NEW."accuracy_metres", NEW."note", NEW."status")
       IS DISTINCT FROM (OLD."visit_id", OLD."species_id", OLD."count", OLD."section", OLD."latitude", OLD."longitude", OLD."accuracy_metres", OLD."note", OLD."status") THEN
     NEW."revision" := OLD."revision" + 1;
+    -- The wall clock, not the transaction's start: a bulk action skips what changed after its list was read.
+    NEW."updated_at" := clock_timestamp();
   END IF;
   RETURN NEW;
 END $$;--> statement-breakpoint

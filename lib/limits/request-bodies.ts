@@ -29,6 +29,11 @@ export const requestBodyLimits = {
    * is answered 413 by the import's routes.
    */
   seasonImport: 2 * MAX_IMPORT_FILE_BYTES + 64 * 1024,
+  /**
+   * A bulk review of up to 5,000 selected sightings (BULK_LIMIT, lib/review/queue-filter.ts), each an
+   * id and a revision (about 70 bytes in JSON), with a note: 512 kB leaves room and no more.
+   */
+  reviewBulk: 512 * 1024,
 } as const;
 
 export type RequestBodyLimit = keyof typeof requestBodyLimits;

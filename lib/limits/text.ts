@@ -29,3 +29,5 @@ export const MAX_CO_RECORDERS_LENGTH = 200;
 export const MAX_SIGHTING_NOTE_LENGTH = 1_000;
 /** A volunteer's answer to a checker's question. */
 export const MAX_REPLY_LENGTH = 1_000;
+/** A reviewer's question to a volunteer, or the note with a set-aside or a correction. Our choice. */
+export const MAX_REVIEW_MESSAGE_LENGTH = 1_000;
