@@ -14,7 +14,7 @@ export default async function FieldLayout({ children }: { children: React.ReactN
       area="/field"
       nav={[
         { href: "/field", label: "My transects" },
-        { href: "/field/records", label: "My records" },
+        { href: "/field/records", label: "My walks" },
         { href: "/safety", label: "Safety" },
       ]}
     >

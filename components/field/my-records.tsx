@@ -1,17 +1,13 @@
 "use client";
 
 import { useQuery, useQueryClient } from "@tanstack/react-query";
-import { keepRecordsCopy, savedRecordsCopy, withReply, type RecordSighting, type RecordsCopy } from "@/lib/offline/records-copy";
+import { currentCopy, keepRecordsCopy, savedRecordsCopy, withReply, type RecordSighting, type RecordsCopy } from "@/lib/offline/records-copy";
+import { CORRECTED, REVIEWER, statusForVolunteer } from "@/lib/review/words";
 import { Conversation, ReplyForm } from "./records/record-conversation";
+import { RecordOutcome } from "./records/record-outcome";
 import { VisitsOnPhone } from "./records/visits-on-phone";
 import { useLive } from "./use-live";
 
-const statusLabel: Record<RecordSighting["status"], string> = {
-  pending: "Waiting for a checker",
-  accepted: "Accepted",
-  queried: "Question from the checker",
-  rejected: "Not accepted",
-};
 const statusStyle: Record<RecordSighting["status"], string> = {
   pending: "bg-shingle-100 text-shingle-800",
   accepted: "bg-lichen-100 text-lichen-700",
@@ -26,18 +22,18 @@ async function fetchRecords(): Promise<RecordsCopy> {
   } catch {
     throw new Error("No signal.");
   }
-  if (!res.ok) throw new Error(res.status === 401 ? "Sign in again to see your records." : "Your records could not be loaded.");
-  const body = (await res.json()) as Partial<RecordsCopy>;
-  return { visits: body.visits ?? [], asOf: body.asOf ?? new Date().toISOString() };
+  if (!res.ok) throw new Error(res.status === 401 ? "Sign in again to see your walks." : "Your walks could not be loaded.");
+  return currentCopy((await res.json()) as Parameters<typeof currentCopy>[0]);
 }
 
 const asOfText = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" });
 
 /**
- * The volunteer's visits on this phone not yet sent, then their sent visits with each record's
- * review status and the checkers' questions. The last copy loaded is kept on the phone and shown,
- * with its age, when there is no signal. `sources` says how walks not sent from a phone came
- * (visit id → "recorded by …, entered by …" or "imported from …").
+ * My walks: the volunteer's walks on this phone not yet sent, then their sent walks with what
+ * review made of each sighting (its status, the reviewer's questions with the answer box, why it
+ * is not used in counts, corrections with old and new names). The last copy loaded is kept on the
+ * phone and shown, with its age, when there is no signal. `sources` says how walks not sent from
+ * a phone came (visit id → "recorded by …, entered by …" or "imported from …").
  */
 export function MyRecords({ volunteerId, sources = {} }: { volunteerId: string; sources?: Record<string, string> }) {
   const client = useQueryClient();
@@ -65,19 +61,19 @@ export function MyRecords({ volunteerId, sources = {} }: { volunteerId: string; 
 
   return (
     <div className="space-y-4">
-      <h1 className="text-2xl font-bold text-tideline-800">My records</h1>
+      <h1 className="text-2xl font-bold text-tideline-800">My walks</h1>
       <VisitsOnPhone />
       {fromPhone && shown && (
         <p role="status" className="rounded-lg bg-sand-100 p-2 text-sm text-sand-800" data-testid="records-as-of">
-          {fresh.isError ? `${(fresh.error as Error).message} ` : "Checking for newer records… "}
-          Showing your records as of {asOfText(shown.asOf)}, saved on this phone.
+          {fresh.isError ? `${(fresh.error as Error).message} ` : "Looking for anything newer… "}
+          Showing your walks as of {asOfText(shown.asOf)}, saved on this phone.
         </p>
       )}
       {!shown && fresh.isPending && <p>Loading…</p>}
       {!shown && fresh.isError && saved !== undefined && (
-        <p className="card">{(fresh.error as Error).message} Your sent records show here once they have loaded with a signal.</p>
+        <p className="card">{(fresh.error as Error).message} Your sent walks show here once they have loaded with a signal.</p>
       )}
-      {shown?.visits.length === 0 && <p className="card">No visits sent yet.</p>}
+      {shown?.visits.length === 0 && <p className="card">No walks sent yet.</p>}
       <ul className="space-y-3">
         {shown?.visits.map((v) => (
           <li key={v.id} className="card">
@@ -88,19 +84,23 @@ export function MyRecords({ volunteerId, sources = {} }: { volunteerId: string; 
                 <li key={s.id} className="py-2" data-testid="record-sighting">
                   <div className="flex flex-wrap items-center justify-between gap-2">
                     <span>{s.vernacularName} × {s.count}{s.section ? ` · section ${s.section}` : ""}</span>
-                    <span className={`rounded-full px-2 py-0.5 text-sm font-bold ${statusStyle[s.status]}`}>{statusLabel[s.status]}</span>
+                    <span className="flex flex-wrap gap-1">
+                      {s.corrections.length > 0 && <span className="rounded-full bg-tideline-100 px-2 py-0.5 text-sm font-bold text-tideline-800">{CORRECTED}</span>}
+                      <span className={`rounded-full px-2 py-0.5 text-sm font-bold ${statusStyle[s.status]}`} data-testid="sighting-status">{statusForVolunteer[s.status]}</span>
+                    </span>
                   </div>
-                  {(s.conversation ?? []).length > 0 && (
+                  <RecordOutcome decision={s.decision} corrections={s.corrections} />
+                  {s.conversation.length > 0 && (
                     <div className="mt-2 rounded-lg bg-sand-100 p-2">
                       <Conversation messages={s.conversation} />
                       {s.awaitingReply ? (
                         fromPhone && fresh.isError ? (
-                          <p className="mt-2 text-sm font-bold">The checker is waiting for your answer: you can send it when you have a signal.</p>
+                          <p className="mt-2 text-sm font-bold">{`The ${REVIEWER} is waiting for your answer: you can send it when you have a signal.`}</p>
                         ) : (
                           <ReplyForm sightingId={s.id} onSent={(reply) => replied(s.id, reply)} />
                         )
                       ) : (
-                        s.status === "queried" && <p className="mt-2 text-sm text-lichen-700">Your answer is with the checker.</p>
+                        s.status === "queried" && <p className="mt-2 text-sm text-lichen-700">{`Your answer is with the ${REVIEWER}.`}</p>
                       )}
                     </div>
                   )}

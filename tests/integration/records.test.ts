@@ -1,7 +1,7 @@
 import { and, eq, not } from "drizzle-orm";
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import { db } from "@/db/client";
-import { sightings, users, verificationEvents, visits } from "@/db/schema";
+import { sightings, species, users, verificationEvents, visits } from "@/db/schema";
 import type { Actor } from "@/lib/auth/guard";
 import { holdsRole } from "@/lib/queries/people";
 import { myRecords, replyToQuestion } from "@/lib/queries/records";
@@ -25,15 +25,23 @@ async function reply(body: unknown) {
   return { status: response.status, json: (await response.json()) as Record<string, any> }; // eslint-disable-line @typescript-eslint/no-explicit-any -- the tests read nested answer fields of several shapes
 }
 
-/** Puts a coordinator's question on one of the volunteer's pending sightings. */
-async function queryOneOf(actor: Actor, message: string) {
-  const [coordinator] = await db().select().from(users).where(holdsRole("coordinator"));
-  const [target] = await db()
-    .select({ id: sightings.id })
+/** The volunteer's pending sightings (the first `n`), in a fixed order. */
+async function pendingOf(actor: Actor, n: number) {
+  const rows = await db()
+    .select({ id: sightings.id, speciesId: sightings.speciesId, count: sightings.count })
     .from(sightings)
     .innerJoin(visits, eq(visits.id, sightings.visitId))
     .where(and(eq(visits.volunteerId, actor.id), eq(sightings.status, "pending")))
-    .limit(1);
+    .orderBy(sightings.id)
+    .limit(n);
+  expect(rows).toHaveLength(n);
+  return rows;
+}
+
+/** Puts a reviewer's question on one of the volunteer's pending sightings. */
+async function queryOneOf(actor: Actor, message: string) {
+  const [coordinator] = await db().select().from(users).where(holdsRole("coordinator"));
+  const [target] = await pendingOf(actor, 1);
   await db().update(sightings).set({ status: "queried", reviewedAt: new Date(), reviewedById: coordinator!.id }).where(eq(sightings.id, target!.id));
   await db().insert(verificationEvents).values([
     { sightingId: target!.id, actorId: coordinator!.id, action: "query", fromStatus: "pending", toStatus: "queried", message: "An older question", createdAt: new Date("2026-07-01T10:00:00Z") },
@@ -42,7 +50,37 @@ async function queryOneOf(actor: Actor, message: string) {
   return target!.id;
 }
 
-describe("a volunteer's own records and answers to questions", () => {
+/**
+ * A reviewer's outcomes on three of the volunteer's pending sightings, written as the review
+ * actions write them (status and history row together): one set aside with a reason and a note,
+ * one corrected (species and count) then confirmed, one confirmed with a note. `tag` goes into
+ * every note, so a test can look for it anywhere in an answer.
+ */
+async function outcomesOn(actor: Actor, tag: string) {
+  const [coordinator] = await db().select().from(users).where(holdsRole("coordinator"));
+  const [setAside, corrected, confirmed] = await pendingOf(actor, 3);
+  const [other] = await db().select({ id: species.id, vernacularName: species.vernacularName }).from(species).where(not(eq(species.id, corrected!.speciesId))).limit(1);
+  const [was] = await db().select({ vernacularName: species.vernacularName }).from(species).where(eq(species.id, corrected!.speciesId));
+  const by = coordinator!.id;
+  await db().transaction(async (tx) => {
+    await tx.update(sightings).set({ status: "rejected", reviewedAt: new Date(), reviewedById: by }).where(eq(sightings.id, setAside!.id));
+    await tx.update(sightings).set({ status: "accepted", speciesId: other!.id, count: corrected!.count + 5, reviewedAt: new Date(), reviewedById: by }).where(eq(sightings.id, corrected!.id));
+    await tx.update(sightings).set({ status: "accepted", reviewedAt: new Date(), reviewedById: by }).where(eq(sightings.id, confirmed!.id));
+    await tx.insert(verificationEvents).values([
+      { sightingId: setAside!.id, actorId: by, action: "reject", fromStatus: "pending", toStatus: "rejected", reason: "likely_other_species", message: `${tag}: looks like a Small Skipper`, createdAt: new Date("2026-07-02T10:00:00Z") },
+      {
+        sightingId: corrected!.id, actorId: by, action: "edit", fromStatus: "pending", toStatus: "pending",
+        fromSpeciesId: corrected!.speciesId, fromSpeciesName: was!.vernacularName, toSpeciesId: other!.id, toSpeciesName: other!.vernacularName,
+        fromCount: corrected!.count, toCount: corrected!.count + 5, message: `${tag}: from the photo`, createdAt: new Date("2026-07-02T10:01:00Z"),
+      },
+      { sightingId: corrected!.id, actorId: by, action: "accept", fromStatus: "pending", toStatus: "accepted", createdAt: new Date("2026-07-02T10:02:00Z") },
+      { sightingId: confirmed!.id, actorId: by, action: "accept", fromStatus: "pending", toStatus: "accepted", message: `${tag}: a fine record`, createdAt: new Date("2026-07-02T10:03:00Z") },
+    ]);
+  });
+  return { setAside: setAside!, corrected: { ...corrected!, was: was!.vernacularName, now: other!.vernacularName }, confirmed: confirmed! };
+}
+
+describe("a volunteer's own walks, the outcome of each sighting, and answers to questions", () => {
   let actor: Actor;
 
   beforeEach(async () => {
@@ -67,6 +105,58 @@ describe("a volunteer's own records and answers to questions", () => {
     expect(queried!.vernacularName.length).toBeGreaterThan(0);
     const pending = records.flatMap((v) => v.sightings).find((s) => s.status === "pending");
     expect(pending).toMatchObject({ question: null, awaitingReply: false });
+  });
+
+  it("gives each sighting its outcome: not used in counts with the reason's words and the note, corrected with old and new names and counts, confirmed with the note", async () => {
+    const made = await outcomesOn(actor, "mine");
+    const all = (await myRecords(actor)).flatMap((v) => v.sightings);
+    const of = (id: string) => all.find((s) => s.id === id)!;
+
+    expect(of(made.setAside.id)).toMatchObject({
+      status: "rejected",
+      decision: { action: "reject", reason: "likely_other_species", reasonText: "Most likely another species", note: "mine: looks like a Small Skipper" },
+      corrections: [],
+    });
+    const corrected = of(made.corrected.id);
+    expect(corrected).toMatchObject({ status: "accepted", vernacularName: made.corrected.now, count: made.corrected.count + 5, decision: { action: "accept", note: null } });
+    expect(corrected.corrections).toEqual([
+      { fromName: made.corrected.was, toName: made.corrected.now, fromCount: made.corrected.count, toCount: made.corrected.count + 5, note: "mine: from the photo", at: new Date("2026-07-02T10:01:00Z") },
+    ]);
+    expect(of(made.confirmed.id)).toMatchObject({ status: "accepted", decision: { action: "accept", reason: null, note: "mine: a fine record" }, corrections: [] });
+    // Waiting sightings have no decision yet.
+    expect(all.find((s) => s.status === "pending")).toMatchObject({ decision: null, corrections: [] });
+
+    // Reopened, the sighting waits again: the old decision no longer stands, the correction stays in its story.
+    const [coordinator] = await db().select().from(users).where(holdsRole("coordinator"));
+    await db().update(sightings).set({ status: "pending" }).where(eq(sightings.id, made.corrected.id));
+    await db().insert(verificationEvents).values({ sightingId: made.corrected.id, actorId: coordinator!.id, action: "reopen", fromStatus: "accepted", toStatus: "pending", createdAt: new Date("2026-07-02T11:00:00Z") });
+    const reopened = (await myRecords(actor)).flatMap((v) => v.sightings).find((s) => s.id === made.corrected.id)!;
+    expect(reopened).toMatchObject({ status: "pending", decision: null });
+    expect(reopened.corrections).toHaveLength(1);
+  });
+
+  it("never shows a volunteer another volunteer's outcomes, questions or notes (query layer and GET)", async () => {
+    const other = await actorFor("volunteer02@harrowmere.example");
+    const theirs = await outcomesOn(other, "theirs");
+    const theirQuestion = await queryOneOf(other, "theirs: which wing?");
+    const theirIds = [theirs.setAside.id, theirs.corrected.id, theirs.confirmed.id, theirQuestion];
+
+    const mine = await myRecords(actor);
+    const mineText = JSON.stringify(mine);
+    for (const id of theirIds) expect(mineText).not.toContain(id);
+    expect(mineText).not.toContain("theirs");
+    const response = await GET(new Request("http://localhost/api/field/records"), { params: Promise.resolve({}) });
+    const body = await response.text();
+    expect(response.status).toBe(200);
+    for (const id of theirIds) expect(body).not.toContain(id);
+    expect(body).not.toContain("theirs");
+
+    // The other volunteer does see them (so the absence above is the access rule, not missing data).
+    session.userId = other.id;
+    const theirBody = await (await GET(new Request("http://localhost/api/field/records"), { params: Promise.resolve({}) })).text();
+    for (const id of theirIds) expect(theirBody).toContain(id);
+    expect(theirBody).toContain("theirs: looks like a Small Skipper");
+    expect(theirBody).toContain("theirs: which wing?");
   });
 
   it("stores a reply on the volunteer's own queried sighting (201) and leaves its status alone", async () => {

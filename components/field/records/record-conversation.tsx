@@ -4,16 +4,17 @@ import { useMutation } from "@tanstack/react-query";
 import { useState } from "react";
 import { MAX_REPLY_LENGTH } from "@/lib/limits/text";
 import type { RecordMessage } from "@/lib/offline/records-copy";
+import { REVIEWER_TITLE } from "@/lib/review/words";
 
 const when = (iso: string) => new Date(iso).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" });
 
-/** The checker's questions and the volunteer's answers on one record, oldest first. */
+/** The reviewer's questions and the volunteer's answers on one sighting, oldest first. */
 export function Conversation({ messages }: { messages: RecordMessage[] }) {
   return (
     <ol className="space-y-1 text-sm" aria-label="Questions and answers">
       {messages.map((m, i) => (
-        <li key={i} className={m.from === "checker" ? "" : "border-l-4 border-tideline-600 pl-2"}>
-          <strong>{m.from === "checker" ? "Checker asked" : "You answered"}</strong>{" "}
+        <li key={i} className={m.from === "reviewer" ? "" : "border-l-4 border-tideline-600 pl-2"}>
+          <strong>{m.from === "reviewer" ? `${REVIEWER_TITLE} asked` : "You answered"}</strong>{" "}
           <span className="text-shingle-600">({when(m.at)})</span>: {m.message ?? "(no message)"}
         </li>
       ))}
@@ -41,7 +42,7 @@ async function sendReply(sightingId: string, message: string): Promise<{ message
   return { message: body.message ?? message, at: body.createdAt ?? new Date().toISOString() };
 }
 
-/** The answer box, shown only while the checker waits for one; keeps the text until it is sent. */
+/** The answer box, shown only while the reviewer waits for one; keeps the text until it is sent. */
 export function ReplyForm({ sightingId, onSent }: { sightingId: string; onSent: (reply: { message: string; at: string }) => void }) {
   const [message, setMessage] = useState("");
   const reply = useMutation({

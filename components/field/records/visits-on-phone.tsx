@@ -6,7 +6,7 @@ import { referenceKey, type FieldReference } from "@/lib/offline/reference";
 import { useFieldUserId } from "../field-providers";
 import { useLive } from "../use-live";
 
-/** Where a visit still on the phone stands, in the volunteer's words. */
+/** Where a walk still on the phone stands, in the volunteer's words. */
 export function phoneStateOf({ visit, photosWaiting }: VisitOnPhone): { label: string; detail: string | null; urgent: boolean } {
   if (visit.phase === "draft") {
     return visit.attention
@@ -45,7 +45,7 @@ export function VisitsOnPhone() {
                 {item.sightings} sighting{item.sightings === 1 ? "" : "s"}, {item.photos} photo{item.photos === 1 ? "" : "s"}
               </p>
               {state.detail && <p className={`mt-1 text-sm ${state.urgent ? "text-rust-700" : "text-shingle-600"}`}>{state.detail}</p>}
-              <a className="btn-quiet mt-2 min-w-tap w-full" href={`/field/visit?id=${visit.id}&transect=${visit.transectId}`}>Open this visit</a>
+              <a className="btn-quiet mt-2 min-w-tap w-full" href={`/field/visit?id=${visit.id}&transect=${visit.transectId}`}>Open this walk</a>
             </li>
           );
         })}

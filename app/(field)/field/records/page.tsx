@@ -3,7 +3,7 @@ import { MyRecords } from "@/components/field/my-records";
 import { requirePageActor } from "@/lib/auth/guard";
 import { walkSourcesOf } from "@/lib/queries/person-walks";
 
-export const metadata: Metadata = { title: "My records" };
+export const metadata: Metadata = { title: "My walks" };
 
 export default async function RecordsPage() {
   const actor = await requirePageActor(["volunteer"], "/field/records");
