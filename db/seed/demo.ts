@@ -83,6 +83,9 @@ export async function seedDemo(database: Database, passwordHash: string, seedDay
     await tx.insert(t.speciesTagLinks).values(
       checklist.flatMap((s) => s.tags.map((tag) => ({ speciesId: speciesId.get(s.scientific)!, tagId: tagId.get(tag)! }))),
     );
+    await tx.insert(t.speciesAggregateMembers).values(
+      checklist.flatMap((s) => (s.members ?? []).map((member) => ({ aggregateId: speciesId.get(s.scientific)!, memberId: speciesId.get(member)! }))),
+    );
 
     const habitatRows = await tx.insert(t.habitatGroups).values(demoHabitats.map((h) => ({ ...h }))).returning();
     const habitatId = new Map(habitatRows.map((r) => [r.code, r.id]));

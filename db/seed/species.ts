@@ -7,6 +7,8 @@ export type SeedSpecies = {
   tags: string[];
   sensitive?: boolean;
   rank?: "species" | "species_aggregate";
+  /** For an aggregate: the scientific names of the species it stands for. */
+  members?: string[];
 };
 
 const range = (a: number, b: number) => Array.from({ length: b - a + 1 }, (_, i) => a + i);
@@ -23,7 +25,7 @@ export const speciesTags = [
 export const checklist: SeedSpecies[] = [
   { scientific: "Thymelicus sylvestris", vernacular: "Small Skipper", months: range(6, 8), tags: ["grassland-specialist"] },
   { scientific: "Thymelicus lineola", vernacular: "Essex Skipper", months: range(6, 8), tags: ["grassland-specialist"] },
-  { scientific: "Thymelicus sylvestris/lineola", vernacular: "Small/Essex Skipper", months: range(6, 8), tags: [], rank: "species_aggregate" },
+  { scientific: "Thymelicus sylvestris/lineola", vernacular: "Small/Essex Skipper", months: range(6, 8), tags: [], rank: "species_aggregate", members: ["Thymelicus sylvestris", "Thymelicus lineola"] },
   { scientific: "Ochlodes sylvanus", vernacular: "Large Skipper", months: range(5, 8), tags: ["wider-countryside"] },
   { scientific: "Erynnis tages", vernacular: "Dingy Skipper", months: range(4, 6), tags: ["grassland-specialist"] },
   { scientific: "Pyrgus malvae", vernacular: "Grizzled Skipper", months: range(4, 6), tags: ["grassland-specialist"] },

@@ -1,5 +1,6 @@
 import "server-only";
 import { sql } from "drizzle-orm";
+import { uuidArray } from "@/lib/sync/sql-arrays";
 import { db, type Transaction } from "@/db/client";
 import type { SightingStatus } from "@/db/schema/field";
 import type { Actor } from "@/lib/auth/guard";
@@ -57,7 +58,7 @@ async function writeEvents(tx: Transaction, actor: Pick<Actor, "id">, ids: reado
     select id, ${actor.id}, ${e.action}::review_action, ${e.fromStatus}::sighting_status, ${e.toStatus}::sighting_status, ${e.message || null}, ${e.reason ?? null},
       ${e.fromSpecies?.id ?? null}::uuid, ${e.fromSpecies?.name ?? null}, ${e.toSpecies?.id ?? null}::uuid, ${e.toSpecies?.name ?? null},
       ${e.fromCount ?? null}::int, ${e.toCount ?? null}::int, clock_timestamp()
-    from unnest(${ids as string[]}::uuid[]) as id`);
+    from unnest(${uuidArray(ids)}) as id`);
 }
 
 async function setStatus(tx: Transaction, actor: Pick<Actor, "id">, ids: readonly string[], status: SightingStatus): Promise<void> {
@@ -66,7 +67,7 @@ async function setStatus(tx: Transaction, actor: Pick<Actor, "id">, ids: readonl
   await tx.execute(sql`
     update sightings set status = ${status}::sighting_status,
       reviewed_by_id = ${reviewed ? actor.id : null}::uuid, reviewed_at = ${reviewed ? sql`clock_timestamp()` : sql`null`}
-    where id = any(${ids as string[]}::uuid[])`);
+    where id = any(${uuidArray(ids)})`);
 }
 
 /** A checklist entry to correct to: it must exist (a merged-away or unknown id is a field error). */
@@ -151,7 +152,7 @@ export async function bulkReview(actor: Actor, input: BulkInput): Promise<BulkRe
       const rows = await tx.execute<Omit<Candidate, "changed">>(sql`
         select s.id, s.revision, s.status, (cardinality(s.warnings) > 0 or cardinality(v.rule_breaches) > 0) as warned
         from sightings s join visits v on v.id = s.visit_id
-        where s.id = any(${[...wanted.keys()]}::uuid[]) order by s.id for update of s`);
+        where s.id = any(${uuidArray([...wanted.keys()])}) order by s.id for update of s`);
       const found = new Set(rows.map((r) => r.id));
       const missing = [...wanted.keys()].filter((id) => !found.has(id));
       if (missing.length) throw invalid({ "selection.ids": [`${missing.length} of the selected sightings no longer exist: refresh the list.`] });

@@ -1,5 +1,6 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
+import { uuidArray } from "@/lib/sync/sql-arrays";
 import { db, type Database, type Transaction } from "@/db/client";
 import type { SightingStatus } from "@/db/schema/field";
 import { presignView } from "@/lib/photos/objects";
@@ -111,7 +112,7 @@ export async function queueRowsByIds(ids: readonly string[], tx: Db = db()): Pro
       select count(*)::int as entries, coalesce(sum(x.count), 0)::int as total from sightings x
       where x.visit_id = s.visit_id and x.species_id = s.species_id and x.section is not distinct from s.section and x.status <> 'rejected'
     ) tally
-    where s.id = any(${ids as string[]}::uuid[])`);
+    where s.id = any(${uuidArray(ids)})`);
   const byId = new Map<string, QueueRow>();
   for (const r of rows) {
     byId.set(r.id, {
