@@ -1,8 +1,8 @@
 import { z } from "zod";
-import { ACCURACY_METRES, BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SECTIONS, SIGHTING_COUNT, TEMPERATURE_C, type Range } from "@/lib/limits/counts";
+import { ACCURACY_METRES, BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SECTIONS, SIGHTING_COUNT, SUNSHINE_PERCENT, TEMPERATURE_C, type Range } from "@/lib/limits/counts";
 import { MAX_CO_RECORDERS_LENGTH, MAX_SIGHTING_NOTE_LENGTH, MAX_VISIT_NOTES_LENGTH } from "@/lib/limits/text";
 import { plausibleInstant, recordDate, safeText } from "@/lib/validation/fields";
-import { MAX_BATCH_ITEMS, skyValues, SYNC_PROTOCOL_VERSION } from "./protocol";
+import { MAX_BATCH_ITEMS, rainValues, skyValues, SYNC_PROTOCOL_VERSION } from "./protocol";
 
 // The wire format between the phone's outbox and POST /api/field/sync: the server validates
 // with these schemas; the phone builds batches from the same types. The parts without zod live
@@ -23,8 +23,11 @@ const wholeBetween = (range: Range, notWhole: string, outside: { below: string; 
   z.number({ message: notWhole }).int({ message: notWhole }).min(range.min, { message: outside.below }).max(range.max, { message: outside.above });
 const beaufort = `Beaufort force runs from ${BEAUFORT_FORCE.min} to ${BEAUFORT_FORCE.max}.`;
 const cloud = `Cloud cover is ${CLOUD_COVER_PERCENT.min}-${CLOUD_COVER_PERCENT.max}%.`;
+const sunshine = `Sunshine is ${SUNSHINE_PERCENT.min}-${SUNSHINE_PERCENT.max}% of the walk.`;
 
 // The visit's fields; the two protocol versions differ only in the complete-list answer.
+// Sunshine and rain came later and are optional in both, so phones still running an older
+// version keep syncing (their walks are stored without them).
 const visitFields = {
   id: z.uuid({ message: "The visit id must be a UUID." }),
   transectId: z.uuid({ message: "Choose a transect." }),
@@ -35,6 +38,8 @@ const visitFields = {
   windBeaufort: wholeBetween(BEAUFORT_FORCE, "Wind is a whole Beaufort force.", { below: beaufort, above: beaufort }).nullable().optional(),
   cloudCoverPercent: wholeBetween(CLOUD_COVER_PERCENT, cloud, { below: cloud, above: cloud }).nullable().optional(),
   sky: z.enum(skyValues).nullable().optional(),
+  sunshinePercent: wholeBetween(SUNSHINE_PERCENT, sunshine, { below: sunshine, above: sunshine }).nullable().optional(),
+  rain: z.enum(rainValues, { message: "Rain is none, light or heavy." }).nullable().optional(),
   coRecorders: optionalText(MAX_CO_RECORDERS_LENGTH),
   notes: optionalText(MAX_VISIT_NOTES_LENGTH),
   submittedAt: isoInstant.nullable().optional(),

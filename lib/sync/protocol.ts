@@ -2,6 +2,10 @@
 
 export const skyValues = ["clear", "mostly_sunny", "broken_cloud", "mostly_cloudy", "overcast"] as const;
 
+/** Rain during a walk (the database's rain enum). */
+export const rainValues = ["none", "light", "heavy"] as const;
+export type Rain = (typeof rainValues)[number];
+
 export const MAX_BATCH_ITEMS = 500;
 
 /**
@@ -26,6 +30,10 @@ export type VisitPayload = {
   windBeaufort?: number | null;
   cloudCoverPercent?: number | null;
   sky?: (typeof skyValues)[number] | null;
+  /** Share of the walk in sunshine, whole percent. Optional in every protocol: older phones never send it. */
+  sunshinePercent?: number | null;
+  /** Optional in every protocol, like sunshinePercent. */
+  rain?: Rain | null;
   coRecorders?: string | null;
   completeList: boolean;
   notes?: string | null;

@@ -20,7 +20,7 @@ export type VisitPlan = { results: ItemResult[]; writes: VisitRow[]; standings: 
 
 const compared = [
   "transectId", "seasonId", "visitDate", "startTime", "endTime", "temperatureC", "windBeaufort", "cloudCoverPercent",
-  "sky", "coRecorders", "completeList", "notes", "submittedAt", "clientUpdatedAt",
+  "sky", "sunshinePercent", "rain", "coRecorders", "completeList", "notes", "submittedAt", "clientUpdatedAt",
 ] as const;
 
 export const VISIT_REASONS = {
@@ -57,6 +57,8 @@ function toRow(actor: Actor, v: VisitPayload, state: ServerState): VisitRow {
     windBeaufort: v.windBeaufort ?? null,
     cloudCoverPercent: v.cloudCoverPercent ?? null,
     sky: v.sky ?? null,
+    sunshinePercent: v.sunshinePercent ?? null,
+    rain: v.rain ?? null,
     coRecorders: v.coRecorders ?? null,
     completeList: v.completeList,
     notes: v.notes ?? null,

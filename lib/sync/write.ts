@@ -39,23 +39,24 @@ export function upsertVisits(tx: BatchTx, rows: VisitRow[]): Promise<void> {
     rows.map((v) => ({
       id: v.id, transect_id: v.transectId, volunteer_id: v.volunteerId, season_id: v.seasonId, visit_date: v.visitDate,
       start_time: v.startTime, end_time: v.endTime, temperature_c: v.temperatureC, wind_beaufort: v.windBeaufort,
-      cloud_cover_percent: v.cloudCoverPercent, sky: v.sky, co_recorders: v.coRecorders, complete_list: v.completeList,
-      notes: v.notes, submitted_at: v.submittedAt, client_updated_at: v.clientUpdatedAt,
+      cloud_cover_percent: v.cloudCoverPercent, sky: v.sky, sunshine_percent: v.sunshinePercent, rain: v.rain,
+      co_recorders: v.coRecorders, complete_list: v.completeList, notes: v.notes, submitted_at: v.submittedAt, client_updated_at: v.clientUpdatedAt,
     })),
   );
   return guarded("visits", rows.length, executePrepared(tx, sql`
     with written as (
     insert into ${visits} as cur (id, transect_id, volunteer_id, season_id, visit_date, start_time, end_time, temperature_c,
-      wind_beaufort, cloud_cover_percent, sky, co_recorders, complete_list, notes, submitted_at, client_updated_at)
+      wind_beaufort, cloud_cover_percent, sky, sunshine_percent, rain, co_recorders, complete_list, notes, submitted_at, client_updated_at)
     select id, transect_id, volunteer_id, season_id, visit_date, start_time, end_time, temperature_c,
-      wind_beaufort, cloud_cover_percent, sky::sky, co_recorders, complete_list, notes, submitted_at, client_updated_at
+      wind_beaufort, cloud_cover_percent, sky::sky, sunshine_percent, rain::rain, co_recorders, complete_list, notes, submitted_at, client_updated_at
     from json_to_recordset(${json}::json) as r(id uuid, transect_id uuid, volunteer_id uuid, season_id uuid, visit_date date,
       start_time time, end_time time, temperature_c double precision, wind_beaufort smallint, cloud_cover_percent smallint,
-      sky text, co_recorders text, complete_list boolean, notes text, submitted_at timestamptz, client_updated_at timestamptz)
+      sky text, sunshine_percent smallint, rain text, co_recorders text, complete_list boolean, notes text, submitted_at timestamptz, client_updated_at timestamptz)
     on conflict (id) do update set
       transect_id = excluded.transect_id, season_id = excluded.season_id, visit_date = excluded.visit_date,
       start_time = excluded.start_time, end_time = excluded.end_time, temperature_c = excluded.temperature_c,
       wind_beaufort = excluded.wind_beaufort, cloud_cover_percent = excluded.cloud_cover_percent, sky = excluded.sky,
+      sunshine_percent = excluded.sunshine_percent, rain = excluded.rain,
       co_recorders = excluded.co_recorders, complete_list = excluded.complete_list, notes = excluded.notes,
       submitted_at = excluded.submitted_at, client_updated_at = excluded.client_updated_at, updated_at = now()
     where cur.volunteer_id = excluded.volunteer_id

@@ -1,6 +1,6 @@
 import { randomUUID } from "node:crypto";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { sightingPayload, visitPayload } from "@/lib/sync/contract";
+import { sightingPayload, visitPayload, visitPayloadFor } from "@/lib/sync/contract";
 import { INSTANT_RANGE_MESSAGE, latestRecordDate } from "@/lib/validation/fields";
 import { TEXT_PROBLEMS } from "@/lib/validation/text";
 
@@ -88,5 +88,37 @@ describe("sync contract: values PostgreSQL would refuse are refused per field", 
       cloudCoverPercent: ["Cloud cover is 0-100%."],
     });
     expect(errorsOf(sightingPayload.safeParse(sighting({ accuracyMetres: 1e308 })))).toEqual({ accuracyMetres: ["Accuracy is 0 to 100000 metres."] });
+  });
+});
+
+describe("sync contract: sunshine and rain are optional in every protocol", () => {
+  beforeEach(() => {
+    vi.useFakeTimers();
+    vi.setSystemTime(new Date("2026-06-10T22:30:00Z"));
+  });
+  afterEach(() => vi.useRealTimers());
+
+  it.each([1, 2])("protocol %i takes a walk without them, with null, and with values inside their ranges", (protocol) => {
+    const schema = visitPayloadFor(protocol);
+    const parsed = schema.parse(visit({ completeList: true }));
+    expect(parsed.sunshinePercent ?? null).toBeNull();
+    expect(parsed.rain ?? null).toBeNull();
+    expect(schema.safeParse(visit({ completeList: true, sunshinePercent: null, rain: null })).success).toBe(true);
+    for (const sunshinePercent of [0, 60, 100]) {
+      for (const rain of ["none", "light", "heavy"]) {
+        expect(schema.parse(visit({ completeList: true, sunshinePercent, rain }))).toMatchObject({ sunshinePercent, rain });
+      }
+    }
+  });
+
+  it.each([1, 2])("protocol %i refuses, per field, a share outside 0-100 or not whole and a rain it does not know", (protocol) => {
+    const schema = visitPayloadFor(protocol);
+    const message = "Sunshine is 0-100% of the walk.";
+    for (const sunshinePercent of [-1, 101, 50.5, "60"]) {
+      expect(errorsOf(schema.safeParse(visit({ completeList: true, sunshinePercent }))), String(sunshinePercent)).toEqual({ sunshinePercent: [message] });
+    }
+    for (const rain of ["drizzle", "", "LIGHT", true]) {
+      expect(errorsOf(schema.safeParse(visit({ completeList: true, rain }))), String(rain)).toEqual({ rain: ["Rain is none, light or heavy."] });
+    }
   });
 });
