@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { BEAUFORT_FORCE, CLOUD_COVER_PERCENT, TEMPERATURE_C } from "@/lib/limits/counts";
+import { BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SUNSHINE_PERCENT, TEMPERATURE_C } from "@/lib/limits/counts";
 import { MAX_CO_RECORDERS_LENGTH } from "@/lib/limits/text";
-import { skyValues } from "@/lib/sync/protocol";
+import { rainValues, skyValues } from "@/lib/sync/protocol";
 import { recordDate, safeText } from "@/lib/validation/fields";
 
 const optionalNumber = (schema: z.ZodNumber) =>
@@ -9,8 +9,12 @@ const optionalNumber = (schema: z.ZodNumber) =>
 
 const beaufort = `Beaufort force runs from ${BEAUFORT_FORCE.min} to ${BEAUFORT_FORCE.max}.`;
 const cloud = `Cloud cover is ${CLOUD_COVER_PERCENT.min}-${CLOUD_COVER_PERCENT.max}%.`;
+const sunshine = `Sunshine is a whole number from ${SUNSHINE_PERCENT.min} to ${SUNSHINE_PERCENT.max}% of the walk.`;
 
-/** The start-of-visit form, checked on the phone with the server's limits (lib/limits). */
+/**
+ * The start-of-walk form, checked on the phone with the server's limits (lib/limits). Sunshine
+ * and rain are optional, like the other conditions: a walk without them is judged on the rest.
+ */
 export const startVisitSchema = z.object({
   transectId: z.uuid({ message: "Choose a transect." }),
   visitDate: recordDate("Choose the date of the walk."),
@@ -23,6 +27,8 @@ export const startVisitSchema = z.object({
   windBeaufort: optionalNumber(z.number().int().min(BEAUFORT_FORCE.min).max(BEAUFORT_FORCE.max, { message: beaufort })),
   cloudCoverPercent: optionalNumber(z.number().int().min(CLOUD_COVER_PERCENT.min, { message: cloud }).max(CLOUD_COVER_PERCENT.max, { message: cloud })),
   sky: z.preprocess((v) => (v === "" ? null : v), z.enum(skyValues).nullable()),
+  sunshinePercent: optionalNumber(z.number({ message: sunshine }).int({ message: sunshine }).min(SUNSHINE_PERCENT.min, { message: sunshine }).max(SUNSHINE_PERCENT.max, { message: sunshine })),
+  rain: z.preprocess((v) => (v === "" || v === undefined ? null : v), z.enum(rainValues, { message: "Choose no rain, light or heavy." }).nullable()),
   coRecorders: z.preprocess((v) => (typeof v === "string" && v.trim() === "" ? null : v), safeText(MAX_CO_RECORDERS_LENGTH).nullable()),
 });
 export type StartVisitInput = z.input<typeof startVisitSchema>;
@@ -34,6 +40,12 @@ export const skyLabel: Record<(typeof skyValues)[number], string> = {
   broken_cloud: "Sun and cloud",
   mostly_cloudy: "Mostly cloudy",
   overcast: "Overcast",
+};
+
+export const rainLabel: Record<(typeof rainValues)[number], string> = {
+  none: "No rain",
+  light: "Light rain",
+  heavy: "Heavy rain",
 };
 
 export { timeNow, todayLocal } from "./clock";

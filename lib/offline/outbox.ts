@@ -42,6 +42,8 @@ function toVisitPayload(v: LocalVisit): VisitPayload {
     windBeaufort: v.windBeaufort,
     cloudCoverPercent: v.cloudCoverPercent,
     sky: v.sky,
+    sunshinePercent: v.sunshinePercent ?? null,
+    rain: v.rain ?? null,
     coRecorders: v.coRecorders,
     notes: v.notes,
     submittedAt: v.submittedAt,

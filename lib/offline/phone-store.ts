@@ -27,6 +27,12 @@ export type LocalVisit = {
   windBeaufort: number | null;
   cloudCoverPercent: number | null;
   sky: "clear" | "mostly_sunny" | "broken_cloud" | "mostly_cloudy" | "overcast" | null;
+  /**
+   * Share of the walk in sunshine (whole percent) and rain during it. Absent on walks stored
+   * before they were asked (not indexed, so no store version was needed): read absent as null.
+   */
+  sunshinePercent?: number | null;
+  rain?: "none" | "light" | "heavy" | null;
   coRecorders: string | null;
   /**
    * The answer to "Did you record every species you saw?": null until the volunteer answers at the

@@ -24,7 +24,7 @@ export async function ownWalk(visitId: string): Promise<LocalVisit> {
 
 export type NewVisit = Pick<
   LocalVisit,
-  "transectId" | "visitDate" | "startTime" | "temperatureC" | "windBeaufort" | "cloudCoverPercent" | "sky" | "coRecorders"
+  "transectId" | "visitDate" | "startTime" | "temperatureC" | "windBeaufort" | "cloudCoverPercent" | "sky" | "sunshinePercent" | "rain" | "coRecorders"
 >;
 
 export async function createVisit(input: NewVisit): Promise<string> {

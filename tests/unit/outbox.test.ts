@@ -270,3 +270,27 @@ describe("photos in the outbox", () => {
     expect(await phoneStore().photos.get(waiting)).toBeDefined();
   });
 });
+
+describe("the outbox and the walk's sunshine and rain", () => {
+  beforeEach(async () => {
+    const db = new PhoneStore(`test-${crypto.randomUUID()}`);
+    setPhoneStore(db);
+    setFieldUser(userId);
+    await db.open();
+  });
+
+  const sentVisits = (bodies: string[]) => bodies.flatMap((b) => (JSON.parse(b) as { visits: Record<string, unknown>[] }).visits);
+
+  it("sends both with the walk, and null for a walk stored before they were asked", async () => {
+    const server = fakeServer();
+    const withThem = await createVisit({ transectId, visitDate: "2026-06-14", startTime: "11:00", temperatureC: 15, windBeaufort: 2, cloudCoverPercent: null, sky: null, sunshinePercent: 70, rain: "light", coRecorders: null });
+    const older = await createVisit({ transectId, visitDate: "2026-06-15", startTime: "11:00", temperatureC: 15, windBeaufort: 2, cloudCoverPercent: null, sky: null, coRecorders: null });
+    await submit(withThem);
+    await submit(older);
+    const run = await runOutbox(userId, server.fetcher);
+    expect(run.sent).toBe(2);
+    const sent = new Map(sentVisits(server.bodies).map((v) => [v.id, v]));
+    expect(sent.get(withThem)).toMatchObject({ sunshinePercent: 70, rain: "light" });
+    expect(sent.get(older)).toMatchObject({ sunshinePercent: null, rain: null });
+  });
+});

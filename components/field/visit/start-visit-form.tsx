@@ -6,18 +6,19 @@ import { useForm, useWatch } from "react-hook-form";
 import { beaufortScale } from "@/lib/field/beaufort";
 import { conditionWarnings, type ConditionsRules } from "@/lib/field/conditions";
 import { fieldDateBounds, fieldDateProblem, NO_SEASON_TAKES_WALKS, type FieldSeason } from "@/lib/field/season-dates";
-import { skyLabel, startVisitSchema, timeNow, todayLocal, type StartVisitInput, type StartVisitValues } from "@/lib/field/visit-form";
+import { rainLabel, skyLabel, startVisitSchema, timeNow, todayLocal, type StartVisitInput, type StartVisitValues } from "@/lib/field/visit-form";
 import type { LocalVisit } from "@/lib/offline/phone-store";
 import { createVisit, updateVisit } from "@/lib/offline/records";
-import { skyValues } from "@/lib/sync/protocol";
+import { rainValues, skyValues } from "@/lib/sync/protocol";
 
 type Transect = { id: string; code: string; name: string; coastal: boolean };
 
-const asText = (n: number | null) => (n == null ? "" : String(n));
+const asText = (n: number | null | undefined) => (n == null ? "" : String(n));
+const watchedNumber = (v: unknown) => (v === "" || v == null || Number.isNaN(Number(v)) ? null : Number(v));
 
-/** The form's starting values: today and now for a new walk, or the saved visit's own. */
+/** The form's starting values: today and now for a new walk, or the saved walk's own. */
 function startingValues(transects: Transect[], transectId: string, visit?: LocalVisit) {
-  if (!visit) return { transectId, visitDate: todayLocal(), startTime: timeNow(), temperatureC: "", windBeaufort: "", cloudCoverPercent: "", sky: "", coRecorders: "" };
+  if (!visit) return { transectId, visitDate: todayLocal(), startTime: timeNow(), temperatureC: "", windBeaufort: "", cloudCoverPercent: "", sky: "", sunshinePercent: "", rain: "", coRecorders: "" };
   return {
     // A transect no longer assigned cannot be kept: the volunteer must choose one of theirs.
     transectId: transects.some((t) => t.id === visit.transectId) ? visit.transectId : "",
@@ -27,12 +28,15 @@ function startingValues(transects: Transect[], transectId: string, visit?: Local
     windBeaufort: asText(visit.windBeaufort),
     cloudCoverPercent: asText(visit.cloudCoverPercent),
     sky: visit.sky ?? "",
+    // Walks stored before sunshine and rain were asked have neither.
+    sunshinePercent: asText(visit.sunshinePercent),
+    rain: visit.rain ?? "",
     coRecorders: visit.coRecorders ?? "",
   };
 }
 
 /**
- * Starts a visit, or with `visit` corrects one already on the phone (a draft, or one the server
+ * Starts a walk, or with `visit` corrects one already on the phone (a draft, or one the server
  * sent back): every field of the start of the walk can be changed. The date stays inside the
  * seasons taking walks that the phone knows of (`seasons`; absent in a copy saved before the
  * server sent them, when the server's own check is the only one).
@@ -62,9 +66,12 @@ export function StartVisitForm({
     defaultValues: startingValues(transects, transectId, visit) as unknown as StartVisitInput,
   });
   const watched = useWatch({ control });
+  const rain = rainValues.find((r) => r === watched.rain) ?? null;
   const warnings = conditionWarnings(rules, {
-    temperatureC: watched.temperatureC === "" || watched.temperatureC == null ? null : Number(watched.temperatureC),
-    windBeaufort: watched.windBeaufort === "" || watched.windBeaufort == null ? null : Number(watched.windBeaufort),
+    temperatureC: watchedNumber(watched.temperatureC),
+    windBeaufort: watchedNumber(watched.windBeaufort),
+    sunshinePercent: watchedNumber(watched.sunshinePercent),
+    rain,
     startTime: typeof watched.startTime === "string" ? watched.startTime : null,
   });
   const chosen = transects.find((t) => t.id === watched.transectId);
@@ -81,6 +88,8 @@ export function StartVisitForm({
       windBeaufort: values.windBeaufort,
       cloudCoverPercent: values.cloudCoverPercent,
       sky: values.sky,
+      sunshinePercent: values.sunshinePercent,
+      rain: values.rain,
       coRecorders: values.coRecorders,
     };
     try {
@@ -88,7 +97,7 @@ export function StartVisitForm({
       const id = visit ? (await updateVisit(visit.id, fields), visit.id) : await createVisit(fields);
       onSaved(id, values.transectId);
     } catch (e) {
-      setSaveError(e instanceof Error ? e.message : "The visit could not be saved on this phone.");
+      setSaveError(e instanceof Error ? e.message : "The walk could not be saved on this phone.");
     }
   });
 
@@ -96,7 +105,7 @@ export function StartVisitForm({
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
-      {visit ? <h2 className="text-xl font-bold text-tideline-800">Correct the visit details</h2> : <h1 className="text-2xl font-bold text-tideline-800">Start a visit</h1>}
+      {visit ? <h2 className="text-xl font-bold text-tideline-800">Correct the walk details</h2> : <h1 className="text-2xl font-bold text-tideline-800">Start a walk</h1>}
       {saveError && <p role="alert" className="font-bold text-rust-700">{saveError}</p>}
       {seasons && !bounds && <p role="alert" className="font-bold text-rust-700">{NO_SEASON_TAKES_WALKS}</p>}
       <div>
@@ -163,6 +172,23 @@ export function StartVisitForm({
             <label htmlFor="cloudCoverPercent" className="field-label">Cloud cover (%)</label>
             <input id="cloudCoverPercent" type="number" inputMode="numeric" min={0} max={100} step={10} className="field-input" {...register("cloudCoverPercent")} />
             {err("cloudCoverPercent")}
+          </div>
+        </div>
+        <div className="grid grid-cols-2 gap-3">
+          <div>
+            <label htmlFor="sunshinePercent" className="field-label">Sunshine (% of the walk)</label>
+            <input id="sunshinePercent" type="number" inputMode="numeric" min={0} max={100} step={10} className="field-input" {...register("sunshinePercent")} />
+            {err("sunshinePercent")}
+          </div>
+          <div>
+            <label htmlFor="rain" className="field-label">Rain</label>
+            <select id="rain" className="field-input" {...register("rain")}>
+              <option value="">Not recorded</option>
+              {rainValues.map((r) => (
+                <option key={r} value={r}>{rainLabel[r]}</option>
+              ))}
+            </select>
+            {err("rain")}
           </div>
         </div>
       </fieldset>
