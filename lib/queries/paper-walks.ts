@@ -84,6 +84,8 @@ export async function createPaperWalk(actor: Actor, input: PaperWalkValues): Pro
       windBeaufort: input.windBeaufort,
       cloudCoverPercent: input.cloudCoverPercent,
       sky: input.sky,
+      sunshinePercent: input.sunshinePercent,
+      rain: input.rain,
       completeList: input.completeList === "yes",
       notes: input.notes,
       enteredById: actor.id,

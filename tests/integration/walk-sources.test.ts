@@ -32,7 +32,7 @@ beforeEach(async () => {
   const [peacock] = await db().select({ id: species.id }).from(species).where(eq(species.scientificName, "Aglais io"));
   const created = await createPaperWalk(checker, {
     volunteerId: volunteer.id, transectId: assignment!.transectId, visitDate: "2026-06-20", startTime: "10:30", endTime: null,
-    temperatureC: null, windBeaufort: null, cloudCoverPercent: null, sky: null, completeList: "yes", notes: null,
+    temperatureC: null, windBeaufort: null, cloudCoverPercent: null, sky: null, sunshinePercent: null, rain: null, completeList: "yes", notes: null,
     sightings: [{ speciesId: peacock!.id, count: 3, section: null }],
   });
   paperWalkId = created.visitId;

@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SECTIONS, SIGHTING_COUNT, TEMPERATURE_C } from "@/lib/limits/counts";
+import { BEAUFORT_FORCE, CLOUD_COVER_PERCENT, SECTIONS, SIGHTING_COUNT, SUNSHINE_PERCENT, TEMPERATURE_C } from "@/lib/limits/counts";
 import { MAX_VISIT_NOTES_LENGTH } from "@/lib/limits/text";
-import { skyValues } from "@/lib/sync/protocol";
+import { rainValues, skyValues } from "@/lib/sync/protocol";
 import { recordDate, safeText } from "@/lib/validation/fields";
 
 // A walk a reviewer or organiser types in for a volunteer who recorded on paper: the form
@@ -15,6 +15,7 @@ const optionalNumber = (schema: z.ZodNumber) => z.preprocess((v) => { const b = 
 const clock = /^([01]\d|2[0-3]):[0-5]\d$/;
 const beaufort = `Beaufort force runs from ${BEAUFORT_FORCE.min} to ${BEAUFORT_FORCE.max}.`;
 const cloud = `Cloud cover is ${CLOUD_COVER_PERCENT.min}-${CLOUD_COVER_PERCENT.max}%.`;
+const sunshine = `Sunshine is a whole number from ${SUNSHINE_PERCENT.min} to ${SUNSHINE_PERCENT.max}% of the walk.`;
 const countMessage = `A whole number from ${SIGHTING_COUNT.min} to ${SIGHTING_COUNT.max}.`;
 const sectionMessage = `A section number from ${SECTIONS.min} to ${SECTIONS.max}.`;
 
@@ -35,6 +36,9 @@ export const paperWalkSchema = z
     windBeaufort: optionalNumber(z.number({ message: beaufort }).int({ message: beaufort }).min(BEAUFORT_FORCE.min, { message: beaufort }).max(BEAUFORT_FORCE.max, { message: beaufort })),
     cloudCoverPercent: optionalNumber(z.number({ message: cloud }).int({ message: cloud }).min(CLOUD_COVER_PERCENT.min, { message: cloud }).max(CLOUD_COVER_PERCENT.max, { message: cloud })),
     sky: z.preprocess(blankToNull, z.enum(skyValues, { message: "Choose the sky from the list." }).nullable()),
+    // Optional, as on the phone: a sheet without them is judged on the other conditions.
+    sunshinePercent: optionalNumber(z.number({ message: sunshine }).int({ message: sunshine }).min(SUNSHINE_PERCENT.min, { message: sunshine }).max(SUNSHINE_PERCENT.max, { message: sunshine })),
+    rain: z.preprocess(blankToNull, z.enum(rainValues, { message: "Choose no rain, light or heavy." }).nullable()),
     // No default: whether every species seen was written down is never guessed (absences depend on it).
     completeList: z.enum(["yes", "no"], { message: "Say whether every species seen was written down." }),
     notes: z.preprocess(blankToNull, safeText(MAX_VISIT_NOTES_LENGTH).nullable()),
