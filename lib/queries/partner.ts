@@ -2,9 +2,11 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { seasons, sightings, visits } from "@/db/schema";
+import { countedSql } from "./counting";
 
-/** What partners may take: verified records only, summarised by season. */
+/** What partners may take: confirmed sightings only (the counting rule), summarised by season. */
 export function verifiedDataBySeason() {
+  const counted = countedSql(sightings.status);
   return db()
     .select({
       id: seasons.id,
@@ -12,10 +14,10 @@ export function verifiedDataBySeason() {
       startsOn: seasons.startsOn,
       endsOn: seasons.endsOn,
       status: seasons.status,
-      transects: sql<number>`count(distinct ${visits.transectId}) filter (where ${sightings.status} = 'accepted')`.mapWith(Number),
-      visits: sql<number>`count(distinct ${visits.id}) filter (where ${sightings.status} = 'accepted')`.mapWith(Number),
-      acceptedRecords: sql<number>`count(${sightings.id}) filter (where ${sightings.status} = 'accepted')`.mapWith(Number),
-      species: sql<number>`count(distinct ${sightings.speciesId}) filter (where ${sightings.status} = 'accepted')`.mapWith(Number),
+      transects: sql<number>`count(distinct ${visits.transectId}) filter (where ${counted})`.mapWith(Number),
+      visits: sql<number>`count(distinct ${visits.id}) filter (where ${counted})`.mapWith(Number),
+      acceptedRecords: sql<number>`count(${sightings.id}) filter (where ${counted})`.mapWith(Number),
+      species: sql<number>`count(distinct ${sightings.speciesId}) filter (where ${counted})`.mapWith(Number),
     })
     .from(seasons)
     .leftJoin(visits, sql`${visits.seasonId} = ${seasons.id}`)
