@@ -57,14 +57,14 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
                 </p>
                 {t.accessNotes && <p className="mt-1 text-sm text-sand-800">{t.accessNotes}</p>}
                 <p className="mt-1">
-                  Last visit: <strong>{t.lastVisit ?? "none yet"}</strong>
+                  Last walk: <strong>{t.lastVisit ?? "none yet"}</strong>
                   {season && (
                     <>
-                      {" "}· This season: <strong>{t.visitsThisSeason + unsent}</strong> of {season.targetVisits} visits
+                      {" "}· This season: <strong>{t.visitsThisSeason + unsent}</strong> of {season.targetVisits} walks
                     </>
                   )}
                 </p>
-                <a className="btn-primary mt-3 min-w-tap w-full" href={`/field/visit?transect=${t.id}`}>Start a visit</a>
+                <a className="btn-primary mt-3 min-w-tap w-full" href={`/field/visit?transect=${t.id}`}>Start a walk</a>
                 <WeatherReport transectId={t.id} transectCode={t.code} seasons={data.seasons} />
               </li>
             );
@@ -95,7 +95,7 @@ export function FieldHome({ firstName, initial }: { firstName: string; initial?:
 
       <OutboxPanel />
       <p>
-        <a className="btn-quiet min-w-tap w-full" href="/field/records">My records and questions</a>
+        <a className="btn-quiet min-w-tap w-full" href="/field/records">My walks and questions</a>
       </p>
       <SafetyNotice compact />
     </div>

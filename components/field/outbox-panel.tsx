@@ -4,6 +4,7 @@ import { useEffect, useState, useSyncExternalStore } from "react";
 import { belongsTo, phoneStore, type KeptOnServer, type OutboxState } from "@/lib/offline/phone-store";
 import { onSyncState, syncNow } from "@/lib/offline/sync-controller";
 import { withdrawWeatherMiss } from "@/lib/offline/weather";
+import { REVIEWER } from "@/lib/review/words";
 import { useFieldUserId } from "./field-providers";
 import { useLive } from "./use-live";
 
@@ -22,8 +23,8 @@ const plural = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;
 
 /** Our words for a `kept-server` answer: sent, but the phone's later edit was not applied. */
 export function keptOnServerNote(kept: KeptOnServer): string {
-  const what = [kept.visit ? "the visit details" : null, kept.sightings ? plural(kept.sightings, "sighting") : null].filter(Boolean).join(" and ");
-  return `Sent, but the server kept its own copy of ${what}: a record checker had already reviewed it, or it had a later change. Your later edits on this phone were not applied.`;
+  const what = [kept.visit ? "the walk details" : null, kept.sightings ? plural(kept.sightings, "sighting") : null].filter(Boolean).join(" and ");
+  return `Sent, but your later changes to ${what} were not applied: a ${REVIEWER} had already reviewed it, or a newer change had arrived first. What Turnstone had stays as it was.`;
 }
 
 function subscribeToConnectivity(changed: () => void): () => void {
@@ -78,7 +79,7 @@ export function OutboxPanel() {
   return (
     <section aria-labelledby="outbox-heading" className="card" data-testid="outbox">
       <div className="flex items-center justify-between gap-2">
-        <h2 id="outbox-heading" className="text-lg font-bold">Outbox</h2>
+        <h2 id="outbox-heading" className="text-lg font-bold">Sending</h2>
         <span className={`rounded-full px-3 py-1 text-sm font-bold ${online ? "bg-lichen-100 text-lichen-700" : "bg-sand-100 text-sand-800"}`}>
           {online ? "Online" : "No signal"}
         </span>
@@ -102,7 +103,7 @@ export function OutboxPanel() {
             .filter((v) => v.attention)
             .map((v) => (
               <li key={v.id} className="rounded-lg border border-rust-700 bg-rust-100 p-2 text-sm text-rust-700">
-                Visit on {v.visitDate}: {v.attention}{" "}
+                Walk on {v.visitDate}: {v.attention}{" "}
                 {v.outbox === "needs-attention" && (
                   <a className="inline-flex min-h-tap min-w-tap items-center font-bold underline" href={`/field/visit?id=${v.id}&transect=${v.transectId}`}>Open it</a>
                 )}
@@ -111,15 +112,15 @@ export function OutboxPanel() {
         </ul>
       )}
       {refusedPhotos.length > 0 && (
-        <ul className="mt-3 space-y-2" aria-label="Photos the server refused">
+        <ul className="mt-3 space-y-2" aria-label="Photos Turnstone refused">
           {refusedPhotos.map((p) => (
             <li key={p.id} className="rounded-lg border border-rust-700 bg-rust-100 p-2 text-sm text-rust-700" data-testid="refused-photo">
-              Photo from the visit on {visitDate(p.visitId)}: {p.attention} It cannot be sent.{" "}
+              Photo from the walk on {visitDate(p.visitId)}: {p.attention} It cannot be sent.{" "}
               <button
                 type="button"
                 className="font-bold underline"
                 onClick={() => {
-                  if (window.confirm("Remove this photo from this phone? The server will not take it.")) void removeRefusedPhoto(p.id);
+                  if (window.confirm("Remove this photo from this phone? Turnstone will not take it.")) void removeRefusedPhoto(p.id);
                 }}
               >
                 Remove it from this phone
@@ -129,7 +130,7 @@ export function OutboxPanel() {
         </ul>
       )}
       {refusedWeather.length > 0 && (
-        <ul className="mt-3 space-y-2" aria-label="Weather reports the server refused">
+        <ul className="mt-3 space-y-2" aria-label="Weather reports Turnstone refused">
           {refusedWeather.map((w) => (
             <li key={w.id} className="rounded-lg border border-rust-700 bg-rust-100 p-2 text-sm text-rust-700" data-testid="refused-weather">
               Weather report for the week of {w.weekStart}: {w.attention}{" "}
@@ -141,10 +142,10 @@ export function OutboxPanel() {
         </ul>
       )}
       {keptNotes.length > 0 && (
-        <ul className="mt-3 space-y-2" aria-label="Notes about sent visits">
+        <ul className="mt-3 space-y-2" aria-label="Notes about sent walks">
           {keptNotes.map((v) => (
             <li key={v.id} role="note" className="rounded-lg border border-tideline-600 bg-tideline-50 p-2 text-sm" data-testid="kept-on-server">
-              Visit on {v.visitDate}: {keptOnServerNote(v.keptOnServer!)}{" "}
+              Walk on {v.visitDate}: {keptOnServerNote(v.keptOnServer!)}{" "}
               <button type="button" className="font-bold underline" onClick={() => void acknowledgeKeptOnServer(v.id)}>
                 Got it
               </button>

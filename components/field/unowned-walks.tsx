@@ -53,7 +53,7 @@ export function UnownedWalks({ transects }: { transects: { id: string; code: str
         })}
       </ul>
       <p className="mt-2 text-sm text-shingle-600">
-        If they are yours, they are sent with your records. If not, they stay on this phone for the volunteer who made them.
+        If they are yours, they are sent with your walks. If not, they stay on this phone for the volunteer who made them.
       </p>
       {error && <p role="alert" className="mt-2 font-bold text-rust-700">{error}</p>}
       <div className="mt-3 grid grid-cols-2 gap-2">

@@ -15,7 +15,7 @@ const stateWords = {
   "on-phone": "On this phone, sent when there is signal.",
   sending: "Sending…",
   sent: "Sent.",
-  "needs-attention": "Not accepted:",
+  "needs-attention": "Sent back:",
 } as const;
 
 /**

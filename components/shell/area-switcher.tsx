@@ -3,7 +3,7 @@ import { areasFor } from "@/lib/auth/roles";
 import type { ShellLink } from "./shell-frame";
 
 /**
- * For a person with more than one area (an organiser who also walks a transect, a checker who
+ * For a person with more than one area (an organiser who also walks a transect, a reviewer who
  * records): a link to each of their areas, the current one marked. Nothing for one area.
  */
 export function AreaSwitcher({ actor, current, link: NavLink }: { actor: Actor; current?: string; link: ShellLink }) {

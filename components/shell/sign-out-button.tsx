@@ -9,7 +9,7 @@ const plural = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;
 /** The question asked before signing out with items still on the phone, or null when there are none. */
 export function unsentWarning(unsent: UnsentOnPhone): string | null {
   const parts = [
-    unsent.visits ? plural(unsent.visits, "visit") : null,
+    unsent.visits ? plural(unsent.visits, "walk") : null,
     unsent.sightings ? plural(unsent.sightings, "sighting") : null,
     unsent.photos ? plural(unsent.photos, "photo") : null,
     unsent.weatherReports ? plural(unsent.weatherReports, "weather report") : null,

@@ -147,7 +147,7 @@ describe("tap targets on a volunteer's field screens (at least 44 x 44 CSS px, m
   });
 
   it("the recording screen's confirmations and its finishing form", async () => {
-    await page.getByRole("button", { name: "Save record" }).click();
+    await page.getByRole("button", { name: "Save sighting" }).click();
     await page.getByRole("button", { name: "+ Add a sighting" }).waitFor();
     await page.getByRole("button", { name: /^Delete (?!this walk)/ }).first().click();
     await page.getByRole("button", { name: "Yes, delete it" }).waitFor();
@@ -159,7 +159,7 @@ describe("tap targets on a volunteer's field screens (at least 44 x 44 CSS px, m
     await page.getByRole("button", { name: "Back" }).click();
   });
 
-  it("My records", async () => {
+  it("My walks", async () => {
     await new MyRecordsPage(page).open();
     await expectSafetyInMenu(page);
     expect(await undersizedTargets(page)).toEqual([]);

@@ -10,7 +10,7 @@ export type FakeServerOptions = {
   down?: boolean;
   status401?: boolean;
   forbidTransect?: string;
-  /** Ids a record checker has reviewed: later edits to them are kept-server. */
+  /** Ids a reviewer has reviewed: later edits to them are kept-server. */
   reviewed?: Set<string>;
   /** Sync answers to lose after the batch was applied (the connection drops on the way back). */
   loseSyncAnswers?: number;

@@ -94,7 +94,7 @@ describe("the field home's weather report", () => {
     fireEvent.click(within(card("DUN-01")).getByRole("button", { name: BUTTON }));
     await within(card("DUN-01")).findByTestId("weather-report");
     await phoneStore().weatherMisses.toCollection().modify({ outbox: "needs-attention", attention: "You are not assigned to that transect." });
-    await waitFor(() => expect(within(card("DUN-01")).getByTestId("weather-report")).toHaveTextContent("Not accepted: You are not assigned to that transect."));
+    await waitFor(() => expect(within(card("DUN-01")).getByTestId("weather-report")).toHaveTextContent("Sent back: You are not assigned to that transect."));
     expect(screen.getByTestId("refused-weather")).toHaveTextContent("You are not assigned to that transect.");
   });
 

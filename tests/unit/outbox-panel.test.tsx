@@ -40,13 +40,14 @@ describe("the outbox panel", () => {
   });
 
   it("words a kept-on-server answer as a note, which the volunteer can dismiss", async () => {
-    expect(keptOnServerNote({ visit: true, sightings: 0 })).toMatch(/kept its own copy of the visit details: a record checker had already reviewed it/);
-    expect(keptOnServerNote({ visit: true, sightings: 2 })).toMatch(/the visit details and 2 sightings/);
+    expect(keptOnServerNote({ visit: true, sightings: 0 })).toMatch(/^Sent, but your later changes to the walk details were not applied: a reviewer had already reviewed it/);
+    expect(keptOnServerNote({ visit: true, sightings: 2 })).toMatch(/changes to the walk details and 2 sightings were not applied/);
+    expect(keptOnServerNote({ visit: true, sightings: 2 })).not.toMatch(/checker|copy|server|visit/i);
     await phoneStore().visits.add(visit("a1", alice, { keptOnServer: { visit: false, sightings: 1 } }));
     render(<FieldProviders userId={alice}><OutboxPanel /></FieldProviders>);
     const note = await screen.findByTestId("kept-on-server");
     expect(note).toHaveTextContent("1 sighting");
-    expect(note).toHaveTextContent("Your later edits on this phone were not applied.");
+    expect(note).toHaveTextContent(/^Walk on .*Sent, but your later changes to 1 sighting were not applied/);
     fireEvent.click(within(note).getByRole("button", { name: "Got it" }));
     await waitFor(() => expect(screen.queryByTestId("kept-on-server")).toBeNull());
     expect((await phoneStore().visits.get("a1"))?.keptOnServer).toBeNull();

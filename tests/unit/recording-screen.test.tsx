@@ -74,7 +74,7 @@ describe("recording screen", () => {
 
     fireEvent.click(await screen.findByRole("button", { name: "Correct it" }));
     // The start-of-visit form opens with the visit's own values.
-    const form = await screen.findByRole("region", { name: "Visit details" });
+    const form = await screen.findByRole("region", { name: "Walk details" });
     await within(form).findByLabelText("Date", {}, { timeout: 5000 }); // the form is loaded on demand
     expect(within(form).getByLabelText("Date")).toHaveValue("2026-07-02");
     expect(within(form).getByLabelText("Start time")).toHaveValue("10:30");
@@ -94,7 +94,7 @@ describe("recording screen", () => {
     fireEvent.change(within(form).getByLabelText("Sun and cloud"), { target: { value: "mostly_sunny" } });
     fireEvent.change(within(form).getByLabelText("Walking with (optional)"), { target: { value: "R. Okafor" } });
     fireEvent.click(within(form).getByRole("button", { name: "Save details" }));
-    await waitFor(() => expect(screen.queryByRole("region", { name: "Visit details" })).toBeNull());
+    await waitFor(() => expect(screen.queryByRole("region", { name: "Walk details" })).toBeNull());
 
     const corrected = (await phoneStore().visits.get(visitId))!;
     expect(corrected).toMatchObject({
@@ -119,17 +119,17 @@ describe("recording screen", () => {
     expect(screen.getByLabelText("Notes (optional)")).toHaveValue("Breezy on the ridge");
 
     // DUN-02 has 4 sections: the Small White in section 6 must be changed before it can go.
-    fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
+    fireEvent.click(screen.getByRole("button", { name: "Submit walk" }));
     expect(await screen.findByRole("alert")).toHaveTextContent("DUN-02 has 4 sections: change the section of Small White first.");
     expect((await phoneStore().visits.get(visitId))!.phase).toBe("draft");
     const white = (await phoneStore().sightings.toArray()).find((s) => s.speciesId === smallWhite)!;
     await phoneStore().sightings.update(white.id, { section: 2 });
     await screen.findByText(/^Section 2/);
-    fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
+    fireEvent.click(screen.getByRole("button", { name: "Submit walk" }));
     expect(await screen.findByRole("alert")).toHaveTextContent("Answer whether you recorded every species you saw before submitting.");
     expect((await phoneStore().visits.get(visitId))!.phase).toBe("draft");
     fireEvent.click(screen.getByRole("radio", { name: "No, only some of them" }));
-    fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
+    fireEvent.click(screen.getByRole("button", { name: "Submit walk" }));
     await screen.findByTestId("visit-submitted");
     expect(await phoneStore().visits.get(visitId)).toMatchObject({ phase: "submitted", outbox: "on-phone", attention: null, transectId: transectB, endTime: "11:45", completeList: false });
     expect(syncNow).toHaveBeenCalled();
@@ -148,7 +148,7 @@ describe("recording screen", () => {
     // The review step names each of the three states.
     expect(screen.getByText(/^Review:/)).toHaveTextContent("complete list not answered yet");
 
-    fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
+    fireEvent.click(screen.getByRole("button", { name: "Submit walk" }));
     expect(await screen.findByRole("alert")).toHaveTextContent("Answer whether you recorded every species you saw before submitting.");
     expect(await phoneStore().visits.get(visitId)).toMatchObject({ phase: "draft", completeList: null });
 
@@ -162,7 +162,7 @@ describe("recording screen", () => {
     expect(screen.getByRole("radio", { name: "Yes, every species I could identify" })).not.toBeChecked();
     fireEvent.click(screen.getByRole("radio", { name: "Yes, every species I could identify" }));
     fireEvent.change(screen.getByLabelText("End time"), { target: { value: "11:30" } });
-    fireEvent.click(screen.getByRole("button", { name: "Submit visit" }));
+    fireEvent.click(screen.getByRole("button", { name: "Submit walk" }));
     await screen.findByTestId("visit-submitted");
     expect(await phoneStore().visits.get(visitId)).toMatchObject({ phase: "submitted", completeList: true });
   });
@@ -173,7 +173,7 @@ describe("recording screen", () => {
     await phoneStore().visits.update(visitId, { outbox: "needs-attention", attention: "Check the times." });
     renderScreen(visitId);
     fireEvent.click(await screen.findByRole("button", { name: "Correct it" }));
-    const form = await screen.findByRole("region", { name: "Visit details" });
+    const form = await screen.findByRole("region", { name: "Walk details" });
     await within(form).findByLabelText("Start time", {}, { timeout: 5000 });
     fireEvent.change(within(form).getByLabelText("Start time"), { target: { value: "12:00" } });
     fireEvent.click(within(form).getByRole("button", { name: "Save details" }));

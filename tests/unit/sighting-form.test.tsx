@@ -39,7 +39,7 @@ describe("sighting form", () => {
     const { onDone } = renderForm(visitId);
     chooseSpecies("Meadow");
     attach(jpeg("brown.jpg"));
-    const save = screen.getByRole("button", { name: "Save record" });
+    const save = screen.getByRole("button", { name: "Save sighting" });
     fireEvent.click(save);
     fireEvent.click(save);
     expect(save).toBeDisabled();
@@ -59,7 +59,7 @@ describe("sighting form", () => {
     expect(screen.getAllByRole("img")).toHaveLength(1);
     // The removed thumbnail's object URL is let go as soon as it leaves the screen.
     expect(urls.revoked).toEqual(["blob:test/1"]);
-    fireEvent.click(screen.getByRole("button", { name: "Save record" }));
+    fireEvent.click(screen.getByRole("button", { name: "Save sighting" }));
     await waitFor(() => expect(onDone).toHaveBeenCalled());
     const stored = await phoneStore().photos.toArray();
     expect(stored).toHaveLength(1);
@@ -85,7 +85,7 @@ describe("sighting form", () => {
     const second = renderForm(visitId, { editing });
     await screen.findByRole("img", { name: "Photo 1" });
     fireEvent.click(screen.getByRole("button", { name: "Remove Photo 1" }));
-    fireEvent.click(screen.getByRole("button", { name: "Save record" }));
+    fireEvent.click(screen.getByRole("button", { name: "Save sighting" }));
     await waitFor(() => expect(second.onDone).toHaveBeenCalled());
     expect(await phoneStore().photos.count()).toBe(0);
     second.unmount();
@@ -99,13 +99,13 @@ describe("sighting form", () => {
     chooseSpecies("Meadow");
     attach(jpeg("brown.jpg"));
     const add = vi.spyOn(phoneStore().photos, "add").mockRejectedValueOnce(new Error("The phone's storage is full."));
-    fireEvent.click(screen.getByRole("button", { name: "Save record" }));
+    fireEvent.click(screen.getByRole("button", { name: "Save sighting" }));
     expect(await screen.findByRole("alert")).toHaveTextContent("storage is full");
     expect(onDone).not.toHaveBeenCalled();
     expect(await phoneStore().sightings.count()).toBe(0);
     // The form is usable again: a second try stores it once.
     add.mockRestore();
-    fireEvent.click(screen.getByRole("button", { name: "Save record" }));
+    fireEvent.click(screen.getByRole("button", { name: "Save sighting" }));
     await waitFor(() => expect(onDone).toHaveBeenCalledTimes(1));
     expect(await phoneStore().sightings.count()).toBe(1);
     expect(await phoneStore().photos.count()).toBe(1);

@@ -27,8 +27,8 @@ describe("signing out", () => {
 
   it("words the question with what is waiting", () => {
     expect(unsentWarning({ visits: 0, sightings: 0, photos: 0 })).toBeNull();
-    expect(unsentWarning({ visits: 1, sightings: 0, photos: 0 })).toMatch(/^You have 1 visit not sent yet\. They stay on this phone and will be sent the next time you sign in on it\./);
-    expect(unsentWarning({ visits: 2, sightings: 5, photos: 1 })).toMatch(/^You have 2 visits, 5 sightings and 1 photo not sent yet\./);
+    expect(unsentWarning({ visits: 1, sightings: 0, photos: 0 })).toMatch(/^You have 1 walk not sent yet\. They stay on this phone and will be sent the next time you sign in on it\./);
+    expect(unsentWarning({ visits: 2, sightings: 5, photos: 1 })).toMatch(/^You have 2 walks, 5 sightings and 1 photo not sent yet\./);
     expect(unsentWarning({ visits: 0, sightings: 0, photos: 0, weatherReports: 1 })).toMatch(/^You have 1 weather report not sent yet\./);
   });
 
@@ -38,7 +38,7 @@ describe("signing out", () => {
     render(<SignOutButton phoneUserId={alice} />);
     fireEvent.click(screen.getByRole("button", { name: "Sign out" }));
     await waitFor(() => expect(confirm).toHaveBeenCalledTimes(1));
-    expect(confirm.mock.calls[0]![0]).toMatch(/1 visit and 2 sightings not sent yet.*stay on this phone.*next time you sign in on it/);
+    expect(confirm.mock.calls[0]![0]).toMatch(/1 walk and 2 sightings not sent yet.*stay on this phone.*next time you sign in on it/);
     await new Promise((r) => setTimeout(r, 20));
     expect(signOutAction).not.toHaveBeenCalled();
   });

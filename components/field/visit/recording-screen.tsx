@@ -9,6 +9,7 @@ import { timeNow } from "@/lib/field/clock";
 import { belongsTo, phoneStore, type LocalSighting } from "@/lib/offline/phone-store";
 import { deleteDraftVisit, deleteSighting, returnToDraft, SOMEONE_ELSES_WALK, submitVisit } from "@/lib/offline/records";
 import { syncNow } from "@/lib/offline/sync-controller";
+import { REVIEWER } from "@/lib/review/words";
 import { useFieldUserId } from "../field-providers";
 import { useLive } from "../use-live";
 import { ConfirmButton } from "./confirm-button";
@@ -68,14 +69,14 @@ export function RecordingScreen({
     const hinted = transects.find((t) => t.id === transectHint);
     return (
       <div>
-        <h1 className="text-2xl font-bold text-tideline-800">{hinted ? `${hinted.code} ${hinted.name}` : "Visit"}</h1>
+        <h1 className="text-2xl font-bold text-tideline-800">{hinted ? `${hinted.code} ${hinted.name}` : "Walk"}</h1>
         <p className="text-sm text-shingle-600">Opening the walk saved on this phone…</p>
       </div>
     );
   }
   if (!data.visit) {
     const why = {
-      missing: "This visit is not on this phone.",
+      missing: "This walk is not on this phone.",
       "someone-else": SOMEONE_ELSES_WALK,
       unknown: "This walk was recorded on this phone before it knew who was signed in. If it is yours, say so on your home screen first.",
     }[data.owner];
@@ -98,7 +99,7 @@ export function RecordingScreen({
       await returnToDraft(visitId);
       setEditingDetails(true);
     } catch (e) {
-      setError(e instanceof Error ? e.message : "The visit could not be reopened.");
+      setError(e instanceof Error ? e.message : "The walk could not be reopened.");
     }
   };
 
@@ -123,14 +124,14 @@ export function RecordingScreen({
       setFinishing(false);
       void syncNow();
     } catch (e) {
-      setError(e instanceof Error ? e.message : "Could not submit the visit.");
+      setError(e instanceof Error ? e.message : "Could not submit the walk.");
     }
   };
 
   return (
     <div className="space-y-4">
       <div>
-        <h1 className="text-2xl font-bold text-tideline-800">{transect ? `${transect.code} ${transect.name}` : "Visit"}</h1>
+        <h1 className="text-2xl font-bold text-tideline-800">{transect ? `${transect.code} ${transect.name}` : "Walk"}</h1>
         <p className="text-sm text-shingle-600">
           {visit.visitDate} from {visit.startTime}
           {visit.temperatureC != null && ` · ${visit.temperatureC} °C`}
@@ -139,7 +140,7 @@ export function RecordingScreen({
         </p>
         {draft && !busy && (
           <button type="button" className="btn-quiet mt-2 min-w-tap" onClick={() => setEditingDetails(true)}>
-            Change visit details
+            Change walk details
           </button>
         )}
       </div>
@@ -149,14 +150,14 @@ export function RecordingScreen({
       {!draft && (
         <div className="card" role="status" data-testid="visit-submitted">
           {visit.outbox === "sent" ? (
-            <p><strong>Sent.</strong> A record checker will look at it.</p>
+            <p><strong>Sent.</strong> {`A ${REVIEWER} will look at its sightings.`}</p>
           ) : visit.outbox === "needs-attention" ? (
             <>
               <p className="font-bold text-rust-700">Needs attention: {visit.attention}</p>
               <button type="button" className="btn-quiet mt-2 min-w-tap" onClick={() => void reopen()}>Correct it</button>
             </>
           ) : (
-            <p><strong>In your outbox.</strong> It will be sent when there is signal.</p>
+            <p><strong>Waiting to send.</strong> It goes when there is signal.</p>
           )}
           <a href="/field" className="btn-primary mt-3 min-w-tap w-full">Back to my transects</a>
         </div>
@@ -164,12 +165,12 @@ export function RecordingScreen({
 
       {draft && visit.attention && (
         <p className="rounded-lg border border-rust-700 bg-rust-100 p-3 text-rust-700" data-testid="visit-attention">
-          <strong>The server sent this visit back:</strong> {visit.attention} Correct it, then submit it again.
+          <strong>This walk was sent back:</strong> {visit.attention} Correct it, then submit it again.
         </p>
       )}
 
       {draft && editingDetails && (
-        <section className="card" aria-label="Visit details">
+        <section className="card" aria-label="Walk details">
           <Suspense fallback={<p>Loading…</p>}>
             <StartVisitForm
               transects={transects}
@@ -273,7 +274,7 @@ export function RecordingScreen({
           </p>
           <div className="grid grid-cols-2 gap-2">
             <button type="button" className="btn-quiet min-w-tap" onClick={() => setFinishing(false)}>Back</button>
-            <button type="button" className="btn-primary min-w-tap" onClick={() => void submit()}>Submit visit</button>
+            <button type="button" className="btn-primary min-w-tap" onClick={() => void submit()}>Submit walk</button>
           </div>
         </section>
       )}

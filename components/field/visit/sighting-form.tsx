@@ -83,7 +83,7 @@ export function SightingForm({
       await saveSightingWithPhotos(visitId, editing?.id ?? null, fields, { add: files.map((f) => f.file), remove: removedIds });
       onDone();
     } catch (e) {
-      setError(e instanceof Error ? e.message : "Could not save the record.");
+      setError(e instanceof Error ? e.message : "Could not save the sighting.");
     } finally {
       savingRef.current = false;
       setSaving(false);
@@ -94,7 +94,7 @@ export function SightingForm({
 
   return (
     <section aria-labelledby="sighting-form-heading" className="card space-y-4 border-2 border-tideline-600">
-      <h2 id="sighting-form-heading" className="text-lg font-bold">{editing ? "Change this record" : "Add a sighting"}</h2>
+      <h2 id="sighting-form-heading" className="text-lg font-bold">{editing ? "Change this sighting" : "Add a sighting"}</h2>
       {error && <p role="alert" className="font-bold text-rust-700">{error}</p>}
       {chosen ? (
         <div className="flex items-center justify-between gap-2 rounded-lg bg-tideline-50 p-3">
@@ -164,8 +164,8 @@ export function SightingForm({
         />
         {photoCount > 0 && (
           <>
-            <p className="mt-1 text-sm">{photoCount} photo{photoCount > 1 ? "s" : ""} with this record{files.length + removedIds.length > 0 ? ": changes are kept when you save" : ""}.</p>
-            <ul className="mt-2 flex flex-wrap gap-3" aria-label="Photos with this record">
+            <p className="mt-1 text-sm">{photoCount} photo{photoCount > 1 ? "s" : ""} with this sighting{files.length + removedIds.length > 0 ? ": changes are kept when you save" : ""}.</p>
+            <ul className="mt-2 flex flex-wrap gap-3" aria-label="Photos with this sighting">
               {storedPhotos.map((p, i) => (
                 <PhotoThumbnail key={p.id} blob={p.blob} label={`Photo ${i + 1}`} onRemove={() => setRemovedIds((ids) => [...ids, p.id])} />
               ))}
@@ -178,7 +178,7 @@ export function SightingForm({
       </div>
       <div className="grid grid-cols-2 gap-2">
         <button type="button" className="btn-quiet min-w-tap" onClick={onDone} disabled={saving}>Cancel</button>
-        <button type="button" className="btn-primary min-w-tap" onClick={() => void save()} disabled={saving} aria-busy={saving}>{saving ? "Saving…" : "Save record"}</button>
+        <button type="button" className="btn-primary min-w-tap" onClick={() => void save()} disabled={saving} aria-busy={saving}>{saving ? "Saving…" : "Save sighting"}</button>
       </div>
     </section>
   );

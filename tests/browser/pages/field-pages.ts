@@ -31,7 +31,7 @@ export class FieldHomePage {
   }
 
   async startVisitOnFirstTransect() {
-    await this.page.getByRole("link", { name: "Start a visit" }).first().click();
+    await this.page.getByRole("link", { name: "Start a walk" }).first().click();
   }
 
   outboxCount(state: "on-phone" | "sending" | "sent" | "needs-attention") {
@@ -71,7 +71,7 @@ export class VisitPage {
     for (let i = 1; i < s.count; i++) await this.page.getByRole("button", { name: "More (Count)" }).click();
     if (s.section) await this.page.getByLabel("Section").selectOption(String(s.section));
     if (s.photo) await this.page.getByLabel("Photos (optional)").setInputFiles(s.photo);
-    await this.page.getByRole("button", { name: "Save record" }).click();
+    await this.page.getByRole("button", { name: "Save sighting" }).click();
     await this.page.getByRole("button", { name: "+ Add a sighting" }).waitFor();
   }
 
@@ -83,7 +83,7 @@ export class VisitPage {
     await this.page.getByRole("button", { name: "Finish the walk" }).click();
     await this.page.getByLabel("End time").fill(endTime);
     await this.page.getByRole("radio", { name: "Yes, every species I could identify" }).check();
-    await this.page.getByRole("button", { name: "Submit visit" }).click();
+    await this.page.getByRole("button", { name: "Submit walk" }).click();
     await this.page.getByTestId("visit-submitted").waitFor();
   }
 }
@@ -95,14 +95,14 @@ export async function openSightingForm(page: Page, search: string) {
   await page.getByRole("list", { name: "Matching species" }).getByRole("button").first().waitFor();
 }
 
-/** Page object for My records. */
+/** Page object for My walks (/field/records). */
 export class MyRecordsPage {
   constructor(private readonly page: Page) {}
 
-  /** Opens the page and waits until the volunteer's sent records have loaded. */
+  /** Opens the page and waits until the volunteer's sent walks have loaded. */
   async open() {
     await this.page.goto("/field/records");
-    await this.page.getByRole("heading", { name: "My records" }).waitFor();
+    await this.page.getByRole("heading", { name: "My walks" }).waitFor();
     await this.page.getByText("Loading…").waitFor({ state: "detached" });
   }
 }
