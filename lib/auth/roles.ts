@@ -1,4 +1,5 @@
 import type { Role } from "@/db/schema/people";
+import { REVIEWER_TITLE } from "@/lib/review/words";
 
 /*
  * Roles and areas. A person may hold several roles (users.roles, never empty).
@@ -23,18 +24,18 @@ export const roles = ["volunteer", "coordinator", "organiser", "partner"] as con
 
 export const roleLabel: Record<Role, string> = {
   volunteer: "Volunteer recorder",
-  coordinator: "Record checker",
+  coordinator: REVIEWER_TITLE,
   organiser: "Network organiser",
   partner: "Partner scientist",
 };
 
-/** "volunteer recorder and record checker", for sentences. */
+/** "volunteer recorder and reviewer", for sentences. */
 export function rolesInWords(list: readonly Role[]): string {
   const words = normaliseRoles(list).map((r) => roleLabel[r].toLowerCase());
   return words.length > 1 ? `${words.slice(0, -1).join(", ")} and ${words.at(-1)}` : (words[0] ?? "");
 }
 
-/** Who checks records: organisers have every reviewer power. */
+/** Who reviews sightings: organisers have every reviewer power. */
 export const REVIEWERS = ["coordinator", "organiser"] as const satisfies readonly Role[];
 
 export type Area = { home: string; label: string; roles: readonly Role[] };
@@ -42,7 +43,7 @@ export type Area = { home: string; label: string; roles: readonly Role[] };
 /** Page areas and the roles each admits, in the order sign-in prefers (homeFor, rolesForPath and the area switcher read this; pages decide with requirePageActor(roles)). */
 export const areas: readonly Area[] = [
   { home: "/network", label: "Network", roles: ["organiser"] },
-  { home: "/review", label: "Record checking", roles: REVIEWERS },
+  { home: "/review", label: "Reviewing", roles: REVIEWERS },
   { home: "/field", label: "Recording", roles: ["volunteer"] },
   { home: "/data", label: "Network data", roles: ["partner"] },
 ];

@@ -76,13 +76,13 @@ describe("each role's areas", () => {
     }, SIGNED_IN_TEST_TIMEOUT);
   }
 
-  it("an organiser also reaches the record checkers' area, and their frame links both areas", async () => {
+  it("an organiser also reaches the reviewers' area, and their frame links both areas", async () => {
     const { context } = sessions.get("organiser")!;
     expect(await reach(context, "/review")).toBe("allowed");
     const page = await context.newPage();
     await page.goto("/network");
     const areas = page.getByRole("navigation", { name: "Your areas" });
-    await areas.getByRole("link", { name: "Record checking" }).click();
+    await areas.getByRole("link", { name: "Reviewing" }).click();
     await page.waitForURL((url) => url.pathname === "/review");
     await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toMatch(/Records to check/);
     await page.close();
@@ -121,7 +121,7 @@ describe("a person with two roles", () => {
       expect(await areas.getByRole("link").allTextContents()).toEqual(["Recording"]);
       await areas.getByRole("link", { name: "Recording" }).click();
       await page.waitForURL((url) => url.pathname === "/field");
-      await expect.poll(() => page.getByRole("navigation", { name: "Your areas" }).getByRole("link").allTextContents()).toEqual(["Record checking"]);
+      await expect.poll(() => page.getByRole("navigation", { name: "Your areas" }).getByRole("link").allTextContents()).toEqual(["Reviewing"]);
       await page.close();
     } finally {
       await session.close();

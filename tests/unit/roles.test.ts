@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { areas, areasFor, hasRole, homeFor, normaliseRoles, REVIEWERS, roles, rolesForPath, rolesInWords } from "@/lib/auth/roles";
+import { areas, areasFor, hasRole, homeFor, normaliseRoles, REVIEWERS, roleLabel, roles, rolesForPath, rolesInWords } from "@/lib/auth/roles";
 
 describe("role areas", () => {
   it("each role has exactly one home it lands on alone, and that area admits it", () => {
@@ -43,5 +43,12 @@ describe("role areas", () => {
     expect(normaliseRoles(["partner", "volunteer", "partner"])).toEqual(["volunteer", "partner"]);
     expect(rolesInWords(["organiser", "volunteer"])).toBe("volunteer recorder and network organiser");
     expect(rolesInWords(["partner"])).toBe("partner scientist");
+    expect(rolesInWords(["coordinator", "volunteer"])).toBe("volunteer recorder and reviewer");
+  });
+
+  it("calls the coordinator role a reviewer and its area Reviewing (our own words, issue 10)", () => {
+    expect(roleLabel.coordinator).toBe("Reviewer");
+    expect(areas.find((a) => a.home === "/review")!.label).toBe("Reviewing");
+    expect(Object.values(roleLabel).join(" ") + areas.map((a) => a.label).join(" ")).not.toMatch(/check/i);
   });
 });
