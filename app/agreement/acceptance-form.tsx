@@ -51,7 +51,7 @@ export function AcceptanceForm({ version, previous }: { version: number; previou
     <form onSubmit={submit} noValidate>
       <Choice
         name="publishName"
-        legend="In data the network publishes, show my records"
+        legend="In data the network publishes, show my sightings"
         options={[[true, "under my name"], [false, "under my pseudonym, without my name"]]}
         value={publishName}
         onChange={setPublishName}

@@ -28,13 +28,13 @@ export default async function RecorderAgreementPage() {
               ? `You accepted version ${agreement.version} on ${mine.acceptedAt.toISOString().slice(0, 10)}. You can change your answers here at any time.`
               : answers.length
                 ? `The agreement has changed since you last accepted it. Please read version ${agreement.version} and answer again before recording.`
-                : "Before you record, please read how the network uses your records and answer two questions."}
+                : "Before you record, please read how the network uses your sightings and answer two questions."}
           </p>
           <section aria-labelledby="terms-heading" className="card mb-4">
             <h2 id="terms-heading" className="mb-2 text-lg font-bold">Version {agreement.version}</h2>
             <div className="whitespace-pre-line">{agreement.body}</div>
             <p className="mt-3">
-              Records are published under{" "}
+              Sightings are published under{" "}
               <a href={licenceUrl[agreement.licence]} className="font-bold text-tideline-700" rel="noreferrer" target="_blank">{licenceLabel[agreement.licence]}</a>.
             </p>
           </section>

@@ -77,8 +77,8 @@ describe("setting up the network, then recording on it", () => {
 
   it("publishes the recorder agreement and assigns a volunteer to the new transect", async () => {
     await page.goto("/network/agreement");
-    await page.getByLabel("How the network uses records").fill("Your records go to the county records centre and into our season reports. You can download or erase your data at any time.");
-    await page.getByRole("group", { name: "Licence records are published under" }).getByRole("radio").first().check();
+    await page.getByLabel("How the network uses sightings").fill("Your records go to the county records centre and into our season reports. You can download or erase your data at any time.");
+    await page.getByRole("group", { name: "Licence sightings are published under" }).getByRole("radio").first().check();
     await page.getByRole("button", { name: "Publish the agreement" }).click();
     await page.getByText(/Version 1 published/).waitFor();
 

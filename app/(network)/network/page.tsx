@@ -7,13 +7,14 @@ import { roleLabel } from "@/lib/auth/roles";
 import { env } from "@/lib/env";
 import type { SeasonPhase } from "@/lib/seasons/rules";
 import { networkHome } from "@/lib/queries/effort";
+import { statusForReviewer } from "@/lib/review/words";
 
 export const metadata: Metadata = { title: "Network overview" };
 
 const PHASE_WORDS: Record<SeasonPhase, string> = {
   planning: "being planned",
   open: "open",
-  grace: "closed, in its grace period for late walks and checking",
+  grace: "closed, in its grace period for late walks and their review",
   frozen: "closed and frozen for analysis",
 };
 
@@ -25,7 +26,7 @@ const LINKS = [
   { href: "/network/agreement", label: "Recorder agreement" },
   { href: "/network/earlier-seasons", label: "Earlier seasons" },
   { href: "/network/history", label: "History" },
-  { href: "/review", label: "Review records" },
+  { href: "/review", label: "Review sightings" },
 ];
 
 const n = (x: number) => x.toLocaleString("en-GB");
@@ -76,9 +77,9 @@ export default async function NetworkHome() {
             <li key={s.id} className="card">
               <h3 className="font-bold">{s.name} <span className="text-sm font-normal text-shingle-600">({s.status})</span></h3>
               <p className="text-sm text-shingle-600">{s.startsOn} to {s.endsOn}</p>
-              <p className="mt-2">{n(s.walks)} walks · {n(s.pending + s.queried + s.accepted + s.rejected)} records</p>
+              <p className="mt-2">{n(s.walks)} walks · {n(s.pending + s.queried + s.accepted + s.rejected)} sightings</p>
               <p>
-                <strong>{n(s.accepted)}</strong> accepted · <strong>{n(s.pending)}</strong> waiting for review · <strong>{n(s.queried)}</strong> queried
+                {statusForReviewer.accepted}: <strong>{n(s.accepted)}</strong> · {statusForReviewer.pending}: <strong>{n(s.pending)}</strong> · {statusForReviewer.queried}: <strong>{n(s.queried)}</strong>
               </p>
             </li>
           ))}

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { requirePageActor } from "@/lib/auth/guard";
 import { verifiedDataBySeason } from "@/lib/queries/partner";
+import { REVIEWER } from "@/lib/review/words";
 
 export const metadata: Metadata = { title: "Network data" };
 
@@ -10,7 +11,7 @@ export default async function PartnerHome() {
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-bold text-tideline-800">Network data</h1>
-      <p>Only records a checker has accepted are counted here. Your access is read-only.</p>
+      <p>{`Only sightings a ${REVIEWER} has confirmed are counted here. Your access is read-only.`}</p>
       <div className="overflow-x-auto">
         <table className="w-full border-collapse bg-white text-left">
           <thead>
@@ -18,8 +19,8 @@ export default async function PartnerHome() {
               <th scope="col" className="p-2">Season</th>
               <th scope="col" className="p-2">Dates</th>
               <th scope="col" className="p-2">Transects</th>
-              <th scope="col" className="p-2">Visits</th>
-              <th scope="col" className="p-2">Accepted records</th>
+              <th scope="col" className="p-2">Walks</th>
+              <th scope="col" className="p-2">Confirmed sightings</th>
               <th scope="col" className="p-2">Species</th>
             </tr>
           </thead>

@@ -5,6 +5,7 @@ import Link from "next/link";
 import { useState } from "react";
 import type { FirstPass, ImportCounts } from "@/lib/import/first-pass";
 import { MAX_IMPORT_FILE_BYTES } from "@/lib/import/limits";
+import { REVIEWER, statusForReviewer } from "@/lib/review/words";
 import { ProblemList } from "./problem-list";
 import { ImportApiError, sendForm } from "./send-form";
 
@@ -53,7 +54,7 @@ export function SeasonImport({ seasons }: { seasons: SeasonChoice[] }) {
         </div>
         <fieldset>
           <legend className="field-label">The imported sightings are</legend>
-          {([["accepted", "Accepted: they were checked before"], ["pending", "Waiting for review by a record checker"]] as const).map(([value, label]) => (
+          {([["accepted", `${statusForReviewer.accepted}: they were reviewed before`], ["pending", `${statusForReviewer.pending}: a ${REVIEWER} looks at each`]] as const).map(([value, label]) => (
             <label key={value} className="mt-1 flex min-h-tap items-center gap-2">
               <input type="radio" name="recordStatus" className="h-5 w-5" checked={choice.recordStatus === value} onChange={() => change({ recordStatus: value })} />
               {label}

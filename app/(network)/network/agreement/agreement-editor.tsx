@@ -38,12 +38,12 @@ export function AgreementEditor() {
       <form noValidate onSubmit={handleSubmit((v) => publish.mutate(v))} className="card space-y-3">
         <h2 className="text-xl font-bold">{current ? `Version ${current.version} (change it to make version ${current.version + 1})` : "Write the first version"}</h2>
         <div>
-          <label htmlFor="agreement-body" className="field-label">How the network uses records</label>
+          <label htmlFor="agreement-body" className="field-label">How the network uses sightings</label>
           <textarea id="agreement-body" rows={12} maxLength={MAX_AGREEMENT_LENGTH} className="field-input" aria-invalid={Boolean(errors.body)} aria-describedby={errors.body ? "agreement-body-error" : undefined} {...register("body")} />
           {errors.body && <p id="agreement-body-error" className="field-error">{errors.body.message}</p>}
         </div>
         <fieldset>
-          <legend className="field-label">Licence records are published under</legend>
+          <legend className="field-label">Licence sightings are published under</legend>
           {RECORD_LICENCES.map((l) => (
             <label key={l} className="flex min-h-tap items-center gap-2">
               <input type="radio" className="h-5 w-5" value={l} {...register("licence")} />

@@ -10,7 +10,7 @@ export default async function AgreementPage() {
     <div className="space-y-6">
       <h1 className="text-2xl font-bold text-tideline-800">Recorder agreement</h1>
       <p className="max-w-prose">
-        What every volunteer accepts before recording: how the network uses their records and the licence it publishes them under.
+        What every volunteer accepts before recording: how the network uses their sightings and the licence it publishes them under.
         Each volunteer answers for themselves whether they are named in published data or shown under their pseudonym, and whether they want the newsletter.
         Saving a change makes a new version, which every volunteer is asked to accept the next time they open their field pages.
       </p>

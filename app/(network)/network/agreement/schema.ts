@@ -6,8 +6,8 @@ import { safeText } from "@/lib/validation/fields";
 export const MAX_AGREEMENT_LENGTH = 20_000;
 
 export const agreementSchema = z.object({
-  body: safeText(MAX_AGREEMENT_LENGTH).pipe(z.string().trim().min(20, { message: "Write the agreement: how the network uses records (at least 20 characters)." })),
-  licence: z.enum(RECORD_LICENCES, { message: "Choose the licence records are published under." }),
+  body: safeText(MAX_AGREEMENT_LENGTH).pipe(z.string().trim().min(20, { message: "Write the agreement: how the network uses sightings (at least 20 characters)." })),
+  licence: z.enum(RECORD_LICENCES, { message: "Choose the licence sightings are published under." }),
 });
 export type AgreementInput = z.input<typeof agreementSchema>;
 export type AgreementValues = z.output<typeof agreementSchema>;

@@ -5,6 +5,7 @@ import { requirePageActor } from "@/lib/auth/guard";
 import { REQUIRED_SIGHTING_COLUMNS, REQUIRED_WALK_COLUMNS, SIGHTING_COLUMNS, WALK_COLUMNS, exampleSightingsCsv, exampleWalksCsv, sightingColumnHelp, walkColumnHelp } from "@/lib/import/columns";
 import { importedFromText, listSeasonImports } from "@/lib/queries/season-import";
 import { listSeasons } from "@/lib/queries/seasons";
+import { statusForReviewer } from "@/lib/review/words";
 
 export const metadata: Metadata = { title: "Earlier seasons" };
 
@@ -41,7 +42,7 @@ export default async function EarlierSeasonsPage() {
             {imports.map((i) => (
               <li key={i.id} className="card">
                 {i.season}: {i.walks.toLocaleString("en-GB")} walks and {i.sightings.toLocaleString("en-GB")} sightings {importedFromText(i)} and {i.sightingsFileName}
-                {i.by ? ` by ${i.by}` : ""}, as {i.recordStatus === "accepted" ? "accepted" : "waiting for review"}.
+                {i.by ? ` by ${i.by}` : ""}, as {statusForReviewer[i.recordStatus === "accepted" ? "accepted" : "pending"].toLowerCase()}.
               </li>
             ))}
           </ul>

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { statusForReviewer } from "@/lib/review/words";
 
 // The earlier-seasons import form (multipart): the two CSV files, the season and what the
 // sightings are stored as. The confirm step repeats them with the preview's hash.
@@ -6,7 +7,7 @@ const csvFile = (what: string) => z.instanceof(File, { message: `Choose the ${wh
 
 export const seasonImportForm = z.object({
   seasonId: z.uuid({ message: "Choose the season the files belong to." }),
-  recordStatus: z.enum(["accepted", "pending"], { message: "Choose accepted or waiting for review." }),
+  recordStatus: z.enum(["accepted", "pending"], { message: `Choose ${statusForReviewer.accepted.toLowerCase()} or ${statusForReviewer.pending.toLowerCase()}.` }),
   walks: csvFile("walks file"),
   sightings: csvFile("sightings file"),
 });

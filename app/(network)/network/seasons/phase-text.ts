@@ -24,8 +24,8 @@ export function phaseHelp(season: Pick<SeasonRow, "phase" | "graceEndsAt">): str
     case "open":
       return "Volunteers record walks dated inside the season.";
     case "grace":
-      return `Walks from the season and their checking are taken until ${season.graceEndsAt ? day(season.graceEndsAt) : "the grace period ends"}.`;
+      return `Walks from the season and their review are taken until ${season.graceEndsAt ? day(season.graceEndsAt) : "the grace period ends"}.`;
     case "frozen":
-      return "Records are final: only an organiser can correct one, and the correction is logged.";
+      return "Sightings are final: only an organiser can correct one, and the correction is logged.";
   }
 }

@@ -24,7 +24,7 @@ export function SeasonMoves({ season, graceDays, anotherOpen }: { season: Season
   const consequence =
     to === "open"
       ? `Volunteers can then record walks dated ${season.startsOn} to ${season.endsOn}, and its dates are fixed.${anotherOpen ? ` The ${anotherOpen.name} is open too; walks go to the season their date falls in.` : ""}`
-      : `Walks from the season and their checking are still taken for ${graceDays} day${graceDays === 1 ? "" : "s"}; after that its records are frozen for analysis. A closed season cannot be reopened.`;
+      : `Walks from the season and their review are still taken for ${graceDays} day${graceDays === 1 ? "" : "s"}; after that its sightings are frozen for analysis. A closed season cannot be reopened.`;
   if (!asking) {
     return <button type="button" className="btn-quiet" onClick={() => setAsking(true)}>{verb}…</button>;
   }

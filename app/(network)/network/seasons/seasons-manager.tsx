@@ -44,7 +44,7 @@ export function SeasonsManager() {
         <Link href="/network/history?entity=season" className="btn-quiet">History</Link>
       </div>
       <p className="text-shingle-700">
-        A season is planned, then opened for walks, then closed. After closing, late walks and their checking are still taken for the grace period; then the season is frozen so its comparisons stay put. Seasons never share a day.
+        A season is planned, then opened for walks, then closed. After closing, late walks and their review are still taken for the grace period; then the season is frozen so its comparisons stay put. Seasons never share a day.
       </p>
       {overview.error && <p role="alert" className="card font-bold text-rust-700">{overview.error.message}</p>}
       {overview.isPending ? (

@@ -42,7 +42,7 @@ export function DetailsFields({ register, errors, habitats, idPrefix }: {
           <span className="font-bold">Sensitive route</span>
         </label>
         <p id={id("sensitive-hint")} className="text-sm text-shingle-600">
-          Its exact route is then shown only to organisers, record checkers and the volunteers assigned to it; everyone else sees only roughly where it is.
+          Its exact route is then shown only to organisers, reviewers and the volunteers assigned to it; everyone else sees only roughly where it is.
         </p>
         <label className="flex min-h-tap items-center gap-2">
           <input type="checkbox" className="h-5 w-5" {...register("coastal")} />
