@@ -11,16 +11,22 @@ export type OutboxBatch = Batch<LocalVisit, LocalSighting, LocalWeatherMiss>;
 /** The ids of a batch's items, by kind. */
 export type BatchIds = { visitIds: string[]; sightingIds: string[]; weatherIds: string[] };
 
-const SIGHTING_NEEDS_ATTENTION = "A record in this visit needs attention.";
+const SIGHTING_NEEDS_ATTENTION = "A sighting on this walk needs attention.";
 
-function describe(result: ItemResult): string {
+/**
+ * The server's answer for one item in the volunteer's words. Field messages are whole sentences,
+ * so the field names (visitDate, speciesId: code, not words) are left out; a reason the server
+ * also put on its field (a date outside the season, say) is said once.
+ */
+export function resultInWords(result: ItemResult): string {
   if (result.status === "forbidden") return result.reason ?? "This transect is not assigned to you any more.";
-  // A reason the server also put on its field (a date outside the season, say) is said once.
-  const fieldMessages = Object.entries(result.errors ?? {}).flatMap(([field, msgs]) => {
-    const more = msgs.filter((m) => m !== result.reason);
-    return more.length ? [`${field}: ${more.join(" ")}`] : [];
-  });
-  return [result.reason, ...fieldMessages].filter(Boolean).join("; ") || "The server could not accept this item.";
+  const said = new Set(result.reason ? [result.reason] : []);
+  const fieldMessages: string[] = [];
+  for (const m of Object.values(result.errors ?? {}).flat()) {
+    if (!said.has(m)) fieldMessages.push(m);
+    said.add(m);
+  }
+  return [result.reason, ...fieldMessages].filter(Boolean).join(" ") || "Turnstone could not take this as it is.";
 }
 
 /** The same change to many sightings by key, in one request (a batch holds hundreds). */
@@ -79,7 +85,7 @@ export async function applyResults(results: ItemResult[], batch: OutboxBatch, ru
         await db.weatherMisses.update(w.id, { outbox: "sent", attention: null });
         run.sent++;
       } else {
-        await db.weatherMisses.update(w.id, { outbox: "needs-attention", attention: r ? describe(r) : "The server did not answer for this weather report." });
+        await db.weatherMisses.update(w.id, { outbox: "needs-attention", attention: r ? resultInWords(r) : "Turnstone did not answer for this weather report." });
         run.needsAttention++;
       }
     }
@@ -92,7 +98,7 @@ export async function applyResults(results: ItemResult[], batch: OutboxBatch, ru
           run.keptOnServer++;
         } else run.sent++;
       } else {
-        await db.visits.update(v.id, { outbox: "needs-attention", attention: r ? describe(r) : "The server did not answer for this visit." });
+        await db.visits.update(v.id, { outbox: "needs-attention", attention: r ? resultInWords(r) : "Turnstone did not answer for this walk." });
         refusedVisits.add(v.id);
         held.add(v.id);
         run.needsAttention++;
@@ -108,7 +114,7 @@ export async function applyResults(results: ItemResult[], batch: OutboxBatch, ru
           run.keptOnServer++;
         } else run.sent++;
       } else {
-        sightingChanges.push({ key: s.id, changes: { outbox: "needs-attention", attention: r ? describe(r) : "The server did not answer for this record." } });
+        sightingChanges.push({ key: s.id, changes: { outbox: "needs-attention", attention: r ? resultInWords(r) : "Turnstone did not answer for this sighting." } });
         run.needsAttention++;
         // The visit is not done until all its sightings are; its own reason, if any, says more.
         if (!refusedVisits.has(s.visitId)) await db.visits.update(s.visitId, { outbox: "needs-attention", attention: SIGHTING_NEEDS_ATTENTION });

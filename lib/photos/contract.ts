@@ -16,7 +16,7 @@ export * from "./protocol";
 
 export const photoUploadRequest = z.object({
   id: z.uuid({ message: "The photo id must be a UUID." }),
-  visitId: z.uuid({ message: "The photo must belong to a visit." }),
+  visitId: z.uuid({ message: "The photo must belong to a walk." }),
   sightingId: z.uuid().nullable().optional(),
   contentType: z.string().max(100),
   bytes: z

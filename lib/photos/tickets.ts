@@ -13,13 +13,13 @@ export const PHOTO_ALREADY_UPLOADED = photoErrorCodes.alreadyUploaded;
 
 async function assertVisitAndSighting(actor: Actor, request: PhotoUploadRequest): Promise<void> {
   const [visit] = await db().select({ volunteerId: visits.volunteerId }).from(visits).where(eq(visits.id, request.visitId));
-  if (!visit) throw notFound("That visit");
-  if (visit.volunteerId !== actor.id) throw forbidden("You can only add photos to your own visits.");
+  if (!visit) throw notFound("That walk");
+  if (visit.volunteerId !== actor.id) throw forbidden("You can only add photos to your own walks.");
   if (!request.sightingId) return;
   const [sighting] = await db().select({ visitId: sightings.visitId }).from(sightings).where(eq(sightings.id, request.sightingId));
   if (!sighting) throw notFound("That sighting");
   if (sighting.visitId !== request.visitId) {
-    throw invalid({ sightingId: ["That sighting belongs to another visit."] }, "That sighting belongs to another visit.");
+    throw invalid({ sightingId: ["That sighting belongs to another walk."] }, "That sighting belongs to another walk.");
   }
 }
 
@@ -44,7 +44,7 @@ export async function requestUploadTicket(actor: Actor, request: PhotoUploadRequ
     // Only "already uploaded" is a 409: the phone's outbox takes a 409 to mean the server has the photo.
     const [existing] = await db().select().from(photos).where(eq(photos.id, request.id));
     if (!existing || existing.uploadedById !== actor.id || existing.visitId !== request.visitId) {
-      throw invalid({ id: ["This photo id is already used for another visit."] }, "This photo id is already used for another visit.");
+      throw invalid({ id: ["This photo is already on another walk."] }, "This photo is already on another walk.");
     }
     if (existing.status === "ready") throw new AppError(409, PHOTO_ALREADY_UPLOADED, "This photo has already been uploaded.");
     if (existing.status === "refused") throw new PhotoRefusal(existing.refusalReason ?? "This photo was refused.");

@@ -18,6 +18,7 @@ import {
 import type { Actor } from "@/lib/auth/guard";
 import { conflict, invalid, notFound } from "@/lib/errors";
 import { asJsonText, wholePattern, withoutName } from "@/lib/people/erasure-text";
+import { REVIEWER } from "@/lib/review/words";
 import { acceptancesOf } from "./agreements";
 import { logChange } from "./change-log";
 import { walkSourceColumns } from "./person-walks";
@@ -109,7 +110,7 @@ export async function personalData(userId: string) {
           .innerJoin(species, eq(species.id, sightings.speciesId))
           .where(inArray(sightings.visitId, visitIds))
           .orderBy(asc(sightings.createdAt)),
-        // The conversation on their sightings; a checker is named by role only (their name is theirs).
+        // The conversation on their sightings; a reviewer is named by role only (their name is theirs).
         db()
           .select({ sightingId: verificationEvents.sightingId, at: verificationEvents.createdAt, fromYou: sql<boolean>`${verificationEvents.actorId} = ${userId}`, action: verificationEvents.action, message: verificationEvents.message })
           .from(verificationEvents)
@@ -121,7 +122,7 @@ export async function personalData(userId: string) {
     : [[], [], []];
 
   const talk = new Map<string, { at: Date; from: string; action: string; message: string | null }[]>();
-  for (const c of conversation) talk.set(c.sightingId, [...(talk.get(c.sightingId) ?? []), { at: c.at, from: c.fromYou ? "you" : "a record checker", action: c.action, message: c.message }]);
+  for (const c of conversation) talk.set(c.sightingId, [...(talk.get(c.sightingId) ?? []), { at: c.at, from: c.fromYou ? "you" : `a ${REVIEWER}`, action: c.action, message: c.message }]);
   const photosOf = new Map<string, { id: string; status: string; createdAt: Date }[]>();
   for (const p of pictures) if (p.sightingId) photosOf.set(p.sightingId, [...(photosOf.get(p.sightingId) ?? []), { id: p.id, status: p.status, createdAt: p.createdAt }]);
   const bySighting = new Map<string, unknown[]>();

@@ -147,7 +147,7 @@ async function moveSeason(actor: Actor, id: string, to: "open" | "closed"): Prom
     const set = to === "open" ? { status: to, openedAt: now } : { status: to, closedAt: now };
     const [after] = await tx.update(seasons).set(set).where(and(eq(seasons.id, id), ne(seasons.status, to))).returning();
     const graceDays = to === "closed" ? await seasonGraceDays(tx) : 0;
-    const summary = to === "open" ? `${MOVE_WORDS.open} the ${after!.name}` : `${MOVE_WORDS.closed} the ${after!.name}; late walks and checking until ${graceEndsAt(after!, graceDays)!.toISOString().slice(0, 10)}, then frozen`;
+    const summary = to === "open" ? `${MOVE_WORDS.open} the ${after!.name}` : `${MOVE_WORDS.closed} the ${after!.name}; late walks and their review until ${graceEndsAt(after!, graceDays)!.toISOString().slice(0, 10)}, then frozen`;
     await logChange(tx, actor, { entity: "season", entityId: id, action: to === "open" ? "open" : "close", summary, before: logged(before), after: logged(after!) });
     return after!;
   });

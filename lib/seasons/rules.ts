@@ -76,7 +76,7 @@ export type RecordChange = { allowed: true; logged: boolean } | { allowed: false
 export function recordChangeRule(phase: SeasonPhase, isOrganiser: boolean): RecordChange {
   if (phase !== "frozen") return { allowed: true, logged: false };
   if (isOrganiser) return { allowed: true, logged: true };
-  return { allowed: false, reason: "This season is frozen for analysis: only an organiser can change its records, and the change is logged." };
+  return { allowed: false, reason: "This season is frozen for analysis: only an organiser can change its sightings, and the change is logged." };
 }
 
 /** The moves an organiser can make: planning → open → closed, nothing back. */

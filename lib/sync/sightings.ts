@@ -1,4 +1,5 @@
 import type { sightings } from "@/db/schema";
+import { REVIEWER } from "@/lib/review/words";
 import type { ItemResult, SightingPayload } from "./contract";
 import type { Indexed } from "./parse";
 import { olderThanServer, sameFields } from "./same";
@@ -13,13 +14,13 @@ const compared = ["visitId", "speciesId", "count", "section", "latitude", "longi
 
 export const SIGHTING_REASONS = {
   otherVolunteer: "This sighting belongs to another volunteer.",
-  unknownVisit: "unknown visit",
-  reviewed: "A coordinator has already reviewed this sighting, so the server's copy is kept.",
-  newer: "The server holds a newer edit of this sighting.",
-  alreadyAbsent: "The server has no such sighting.",
+  unknownVisit: "Turnstone does not have this sighting's walk.",
+  reviewed: `A ${REVIEWER} has already reviewed this sighting, so it stays as Turnstone has it.`,
+  newer: "Turnstone already has a newer change to this sighting.",
+  alreadyAbsent: "Turnstone has no such sighting.",
 } as const;
 
-/** Reviewed records are the coordinator's: resends never overwrite or delete them. */
+/** Reviewed sightings are the reviewers': resends never overwrite or delete them. */
 export function isReviewed(s: Pick<ServerSighting, "status" | "reviewedAt">): boolean {
   return s.status !== "pending" || s.reviewedAt !== null;
 }
@@ -54,7 +55,7 @@ function decideWrite(row: SightingRow, server: ServerSighting | undefined, stand
     return {
       status: "invalid",
       reason: SIGHTING_REASONS.unknownVisit,
-      errors: { visitId: ["The server has no valid copy of this sighting's visit: send the visit first, or fix it."] },
+      errors: { visitId: ["Send the walk first, or correct it if it was refused."] },
     };
   }
   const errors: Record<string, string[]> = {};

@@ -103,7 +103,7 @@ describe("downloading one's own data", () => {
     const mine = data.walks.find((w: { id: string }) => w.id === walk!.id).sightings.find((s: { id: string }) => s.id === seen);
     expect(mine).toMatchObject({ note: "by the gate", count: 2, scientificName: taxon!.scientificName });
     expect(mine.conversation.map((c: { from: string; message: string }) => [c.from, c.message])).toEqual([
-      ["a record checker", "Which gate?"],
+      ["a reviewer", "Which gate?"],
       ["you", "The north one"],
     ]);
     expect(data.messagesYouWrote.map((m: { message: string }) => m.message)).toEqual(["The north one"]);

@@ -155,7 +155,7 @@ describe("field photos against the real database and S3 fake", () => {
       .limit(1);
     await expect(requestUploadTicket(volunteer, { id, visitId: mySecondVisit!.id, contentType: "image/jpeg", bytes: 10 })).rejects.toMatchObject({
       status: 400,
-      fieldErrors: { id: ["This photo id is already used for another visit."] },
+      fieldErrors: { id: ["This photo is already on another walk."] },
     });
     await expect(requestUploadTicket(otherVolunteer, { id, visitId: otherVisitId, contentType: "image/jpeg", bytes: 10 })).rejects.toMatchObject({
       status: 400,
@@ -223,7 +223,7 @@ describe("field photos against the real database and S3 fake", () => {
     await expect(ask(volunteer, { visitId: randomUUID() })).rejects.toMatchObject({ status: 404 });
     await expect(ask(volunteer, { sightingId: randomUUID() })).rejects.toMatchObject({ status: 404 });
     const [foreign] = await db().select({ id: sightings.id }).from(sightings).where(ne(sightings.visitId, visitId)).limit(1);
-    await expect(ask(volunteer, { sightingId: foreign!.id })).rejects.toMatchObject({ status: 400, fieldErrors: { sightingId: ["That sighting belongs to another visit."] } });
+    await expect(ask(volunteer, { sightingId: foreign!.id })).rejects.toMatchObject({ status: 400, fieldErrors: { sightingId: ["That sighting belongs to another walk."] } });
 
     const { id } = await upload(await phoneJpeg());
     await expect(completeUpload(otherVolunteer, id)).rejects.toMatchObject({ status: 403 });

@@ -104,7 +104,7 @@ describe("season routes", () => {
     const closedAt = Date.parse(closed.json.season.closedAt);
     expect(Math.abs(closedAt - Date.now())).toBeLessThan(60_000);
     const log = (await logsOf(id)).find((l) => l.action === "close")!;
-    expect(log.summary).toBe(`Closed the 2090 season; late walks and checking until ${new Date(closedAt + 30 * 86_400_000).toISOString().slice(0, 10)}, then frozen`);
+    expect(log.summary).toBe(`Closed the 2090 season; late walks and their review until ${new Date(closedAt + 30 * 86_400_000).toISOString().slice(0, 10)}, then frozen`);
     const listed = (await call(list.GET)).json.seasons.find((s: { id: string }) => s.id === id);
     expect(listed.phase).toBe("grace");
     const before = await counts();

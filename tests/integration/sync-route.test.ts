@@ -174,7 +174,7 @@ describe("POST /api/field/sync", () => {
     expect(results[4]!.errors).toEqual({ note: [TEXT_PROBLEMS.control] });
     expect(results[6]!.errors).toEqual({ note: [TEXT_PROBLEMS.brokenCharacter] });
     expect(results[7]!.errors).toEqual({ clientUpdatedAt: ["Must be a time between 1900-01-01 and 2100-12-31."] });
-    expect(results[8]).toMatchObject({ reason: "unknown visit", errors: { visitId: [expect.any(String)] } });
+    expect(results[8]).toMatchObject({ reason: "Turnstone does not have this sighting's walk.", errors: { visitId: [expect.any(String)] } });
 
     const storedVisits = await db().select({ id: visits.id }).from(visits).where(inArray(visits.id, batch.visits.map((v) => v.id)));
     expect(storedVisits.map((v) => v.id)).toEqual([goodVisit.id]);

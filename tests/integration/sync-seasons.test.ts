@@ -49,7 +49,7 @@ describe("sync and the seasons", () => {
     expect(refused.status).toBe(400);
     expect(refused.response.results[0]).toMatchObject({ status: "invalid", reason: expect.stringMatching(/closed and its grace period is over/) });
     expect(refused.response.results[0]!.errors?.visitDate).toHaveLength(1);
-    expect(refused.response.results[1]).toMatchObject({ status: "invalid", reason: "unknown visit" });
+    expect(refused.response.results[1]).toMatchObject({ status: "invalid", reason: "Turnstone does not have this sighting's walk." });
 
     const [planned] = await db().insert(seasons).values({ name: "Planned season", startsOn: addDays(open.endsOn, 1), endsOn: addDays(open.endsOn, 30) }).returning();
     const early = await applySyncBatch(actor, { visits: [visitOf(transect.id, planned!.startsOn)] });

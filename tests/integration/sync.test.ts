@@ -174,7 +174,7 @@ describe("applying a sync batch from a volunteer's phone", () => {
     expect(storedOne).toMatchObject({ index: 1, id: goodSighting.id, status: "created" });
     expect(junk).toMatchObject({ index: 2, id: null, status: "invalid" });
     expect(Object.keys(junk!.errors!)).toEqual(expect.arrayContaining(["id", "visitId", "speciesId", "count", "clientUpdatedAt"]));
-    expect(orphan).toMatchObject({ index: 3, status: "invalid", reason: "unknown visit", errors: { visitId: [expect.any(String)] } });
+    expect(orphan).toMatchObject({ index: 3, status: "invalid", reason: "Turnstone does not have this sighting's walk.", errors: { visitId: [expect.any(String)] } });
 
     const [stored] = await db().select().from(visits).where(eq(visits.id, good.id));
     expect(stored).toBeDefined();
@@ -289,7 +289,7 @@ describe("applying a sync batch from a volunteer's phone", () => {
     });
     expect(older.response.results.map((r) => [r.status, r.reason])).toEqual([
       ["kept-server", "The server holds a newer edit of this visit."],
-      ["kept-server", "The server holds a newer edit of this sighting."],
+      ["kept-server", "Turnstone already has a newer change to this sighting."],
     ]);
     expect((await storedSighting(s.id))!.count).toBe(5);
 
