@@ -29,7 +29,7 @@ export type OutboxRun = {
   retryLater: boolean;
 };
 
-export const SIGN_IN_AGAIN = "Sign in again to send these records.";
+export const SIGN_IN_AGAIN = "Sign in again to send what is on this phone.";
 
 function toVisitPayload(v: LocalVisit): VisitPayload {
   const payload: Omit<VisitPayload, "completeList"> = {
@@ -109,16 +109,16 @@ type SyncAnswer =
 
 async function readSyncAnswer(response: Response): Promise<SyncAnswer> {
   if (response.status === 401) return { kind: "signed-out" };
-  if (isPassingFault(response.status)) return { kind: "retry", note: `The server could not take them just now (${response.status}); trying again soon.` };
+  if (isPassingFault(response.status)) return { kind: "retry", note: `Turnstone could not take them just now (${response.status}); trying again soon.` };
   const body = (await response.clone().json().catch(() => null)) as Partial<SyncResponse> | null;
   if (body && Array.isArray(body.results)) return { kind: "results", results: body.results };
   if (response.status >= 400) {
     // A refusal of the whole batch (malformed, too large): sending it again would meet the same answer.
     const { message } = await readServerError(response);
-    return { kind: "refused", message: message ?? `The server refused these records (${response.status}).` };
+    return { kind: "refused", message: message ?? `Turnstone did not take these walks and sightings (${response.status}).` };
   }
   // A 2xx that is not our answer (a Wi-Fi sign-in page, say): nothing was confirmed, try later.
-  return { kind: "retry", note: "The server's answer could not be read; trying again soon." };
+  return { kind: "retry", note: "Turnstone's answer could not be read; trying again soon." };
 }
 
 /**

@@ -10,7 +10,7 @@ import { isPassingFault, readServerError } from "./server-answers";
  */
 type Outcome = { kind: "sent" } | { kind: "retry"; note: string } | { kind: "signed-out" } | { kind: "refused"; reason: string };
 
-const retryNote = (status: number) => `Not sent yet: the server could not take it just now (${status}); trying again soon.`;
+const retryNote = (status: number) => `Not sent yet: Turnstone could not take it just now (${status}); trying again soon.`;
 
 async function refusalOrRetry(res: Response): Promise<Outcome> {
   if (res.status === 401) return { kind: "signed-out" };
@@ -18,7 +18,7 @@ async function refusalOrRetry(res: Response): Promise<Outcome> {
   const error = await readServerError(res);
   // Completion before the file reached the store: upload it again.
   if (error.code === photoErrorCodes.notUploaded) return { kind: "retry", note: "The upload did not arrive; sending it again soon." };
-  return { kind: "refused", reason: error.message ?? `The server refused this photo (${res.status}).` };
+  return { kind: "refused", reason: error.message ?? `Turnstone did not take this photo (${res.status}).` };
 }
 
 /**
@@ -89,7 +89,7 @@ export async function sendPhotos(fetcher: typeof fetch, run: OutboxRun, userId: 
 export async function removeRefusedPhoto(photoId: string): Promise<void> {
   const photos = phoneStore().photos;
   const photo = await photos.get(photoId);
-  if (photo?.outbox !== "needs-attention") throw new Error("Only a photo the server refused can be removed here.");
+  if (photo?.outbox !== "needs-attention") throw new Error("Only a photo Turnstone refused can be removed here.");
   await ownWalk(photo.visitId);
   await photos.delete(photoId);
 }

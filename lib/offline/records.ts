@@ -17,7 +17,7 @@ function signedIn(): string {
 /** The walk, if the signed-in volunteer owns it (a walk whose owner is not known is nobody's yet). */
 export async function ownWalk(visitId: string): Promise<LocalVisit> {
   const visit = await phoneStore().visits.get(visitId);
-  if (!visit) throw new Error("That visit is not on this phone.");
+  if (!visit) throw new Error("That walk is not on this phone.");
   if (!belongsTo(visit, fieldUser())) throw new Error(SOMEONE_ELSES_WALK);
   return visit;
 }
@@ -49,7 +49,7 @@ export async function createVisit(input: NewVisit): Promise<string> {
 
 async function editableVisit(visitId: string): Promise<LocalVisit> {
   const visit = await ownWalk(visitId);
-  if (visit.phase !== "draft") throw new Error("This visit has been submitted and can no longer be changed here.");
+  if (visit.phase !== "draft") throw new Error("This walk has been submitted and can no longer be changed here.");
   return visit;
 }
 
@@ -69,7 +69,7 @@ export async function addSighting(visitId: string, input: NewSighting): Promise<
 
 export async function updateSighting(id: string, changes: Partial<NewSighting>): Promise<void> {
   const sighting = await phoneStore().sightings.get(id);
-  if (!sighting) throw new Error("That record is not on this phone.");
+  if (!sighting) throw new Error("That sighting is not on this phone.");
   await editableVisit(sighting.visitId);
   await phoneStore().sightings.update(id, { ...changes, updatedAt: now() });
 }
@@ -161,7 +161,7 @@ export async function submitVisit(visitId: string, finish: { endTime: string; co
 /** Lets the volunteer correct a visit the server could not accept, then submit it again. */
 export async function returnToDraft(visitId: string): Promise<void> {
   const visit = await ownWalk(visitId);
-  if (visit.outbox !== "needs-attention") throw new Error("Only a visit that needs attention can be reopened.");
+  if (visit.outbox !== "needs-attention") throw new Error("Only a walk that needs attention can be reopened.");
   await phoneStore().visits.update(visitId, { phase: "draft", outbox: "on-phone" });
 }
 

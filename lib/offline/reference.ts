@@ -21,7 +21,7 @@ export async function keepReference(data: FieldReference): Promise<void> {
 /** Fetches a fresh copy when there is signal and keeps it on the phone. Throws when offline. */
 export async function refreshReference(fetcher: typeof fetch = fetch): Promise<FieldReference> {
   const res = await fetcher("/api/field/reference", { credentials: "same-origin", cache: "no-store" });
-  if (!res.ok) throw new Error(res.status === 401 ? "Sign in again to refresh your transects." : `The server answered ${res.status}.`);
+  if (!res.ok) throw new Error(res.status === 401 ? "Sign in again to refresh your transects." : `Your transects could not be loaded just now (${res.status}).`);
   const data = (await res.json()) as FieldReference;
   await keepReference(data);
   return data;

@@ -5,7 +5,7 @@ import { fieldUser, phoneStore, type LocalWeatherMiss } from "./phone-store";
 // report here with no signal needed, and the outbox sends it with the next pass (the server's
 // side: lib/sync/weather.ts). One report per transect and week: a second tap finds the first.
 
-export const UNDO_TOO_LATE = "This report has already gone to the server, so it can no longer be taken back here.";
+export const UNDO_TOO_LATE = "This report has already been sent, so it can no longer be taken back here.";
 
 function signedIn(): string {
   const userId = fieldUser();

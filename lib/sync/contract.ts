@@ -29,7 +29,7 @@ const sunshine = `Sunshine is ${SUNSHINE_PERCENT.min}-${SUNSHINE_PERCENT.max}% o
 // Sunshine and rain came later and are optional in both, so phones still running an older
 // version keep syncing (their walks are stored without them).
 const visitFields = {
-  id: z.uuid({ message: "The visit id must be a UUID." }),
+  id: z.uuid({ message: "The walk id must be a UUID." }),
   transectId: z.uuid({ message: "Choose a transect." }),
   visitDate,
   startTime: clockTime,
@@ -46,7 +46,7 @@ const visitFields = {
   clientUpdatedAt: isoInstant,
 };
 const endsAfterStart = (v: { startTime: string; endTime?: string | null }) => !v.endTime || v.endTime >= v.startTime;
-const endsBeforeStart = { message: "The visit cannot end before it starts.", path: ["endTime"] };
+const endsBeforeStart = { message: "The walk cannot end before it starts.", path: ["endTime"] };
 
 export const COMPLETE_LIST_REQUIRED = "Say whether you recorded every species you saw.";
 
@@ -73,7 +73,7 @@ export const visitPayloadFor = (protocol: number) => (protocol >= 2 ? visitPaylo
 export const sightingPayload = z
   .object({
     id: z.uuid({ message: "The sighting id must be a UUID." }),
-    visitId: z.uuid({ message: "The sighting must belong to a visit." }),
+    visitId: z.uuid({ message: "The sighting must belong to a walk." }),
     speciesId: z.uuid({ message: "Choose a species from the checklist." }),
     count: wholeBetween(SIGHTING_COUNT, "Count must be a whole number.", { below: "Count cannot be negative.", above: `Count is at most ${SIGHTING_COUNT.max}.` }),
     section: wholeBetween(SECTIONS, "Section must be a whole number.", {

@@ -3,6 +3,7 @@ import type { Actor } from "@/lib/auth/guard";
 import type { ItemResult, VisitPayload } from "./contract";
 import type { Indexed } from "./parse";
 import { versionOn } from "@/lib/geo/versions";
+import { REVIEWER } from "@/lib/review/words";
 import { fieldDateVerdict, phaseOf } from "@/lib/seasons/rules";
 import { clockWithSeconds, olderThanServer, sameFields } from "./same";
 import { seasonFor, type ServerState, type ServerVisit } from "./server-state";
@@ -24,11 +25,11 @@ const compared = [
 ] as const;
 
 export const VISIT_REASONS = {
-  otherVolunteer: "This visit belongs to another volunteer.",
+  otherVolunteer: "This walk belongs to another volunteer.",
   notAssigned: "You are not assigned to that transect.",
-  reviewed: "A coordinator has reviewed sightings on this visit, so the server's copy of the visit is kept.",
-  newer: "The server holds a newer edit of this visit.",
-  frozen: "This walk's season is closed and its grace period is over, so the server's copy is kept: only an organiser can change it now.",
+  reviewed: `A ${REVIEWER} has reviewed sightings on this walk, so the walk stays as Turnstone has it.`,
+  newer: "Turnstone already has a newer change to this walk.",
+  frozen: "This walk's season is closed and its grace period is over, so the walk stays as Turnstone has it: only an organiser can change it now.",
 } as const;
 
 /** Whether the stored walk's season is past its grace period: the phone can no longer change it. */

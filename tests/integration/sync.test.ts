@@ -288,7 +288,7 @@ describe("applying a sync batch from a volunteer's phone", () => {
       sightings: [{ ...s, count: 1, clientUpdatedAt: "2026-05-14T11:00:00.000Z" }],
     });
     expect(older.response.results.map((r) => [r.status, r.reason])).toEqual([
-      ["kept-server", "The server holds a newer edit of this visit."],
+      ["kept-server", "Turnstone already has a newer change to this walk."],
       ["kept-server", "Turnstone already has a newer change to this sighting."],
     ]);
     expect((await storedSighting(s.id))!.count).toBe(5);
@@ -332,7 +332,7 @@ describe("applying a sync batch from a volunteer's phone", () => {
     const [theirs] = await db().select().from(visits).where(eq(visits.id, theirVisitId));
     const { status, response } = await applySyncBatch(actor, { visits: [visitOf(transect.id, { id: theirs!.id })] });
     expect(status).toBe(403);
-    expect(response.results[0]).toMatchObject({ status: "forbidden", reason: "This visit belongs to another volunteer." });
+    expect(response.results[0]).toMatchObject({ status: "forbidden", reason: "This walk belongs to another volunteer." });
     const [after] = await db().select().from(visits).where(eq(visits.id, theirVisitId));
     expect(after).toEqual(theirs);
   });

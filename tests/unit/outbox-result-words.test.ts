@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { resultInWords } from "@/lib/offline/outbox-results";
 import { SIGHTING_REASONS } from "@/lib/sync/sightings";
+import { VISIT_REASONS } from "@/lib/sync/visits";
 
 // What a volunteer reads when the server refuses an item: sentences, never the protocol's
 // field names (visitId, visitDate) or its technical words (issue 10, "Our own words").
@@ -27,7 +28,8 @@ describe("the server's answer for one item, in the volunteer's words", () => {
     expect(resultInWords({ kind: "sighting", id: "6c5d4e3f-2a1b-4c0d-9e8f-7a6b5c4d3e2f", index: 0, status: "invalid" })).toBe("Turnstone could not take this as it is.");
   });
 
-  it("keeps the old vocabulary out of every reason a sighting can be given", () => {
-    for (const reason of Object.values(SIGHTING_REASONS)) expect(reason).not.toMatch(/checker|coordinator|visit|server|record/i);
+  it("keeps the old vocabulary out of every reason a walk or a sighting can be given", () => {
+    for (const reason of [...Object.values(SIGHTING_REASONS), ...Object.values(VISIT_REASONS)]) expect(reason).not.toMatch(/checker|coordinator|visit|server|record/i);
+    expect(VISIT_REASONS.reviewed).toBe("A reviewer has reviewed sightings on this walk, so the walk stays as Turnstone has it.");
   });
 });
