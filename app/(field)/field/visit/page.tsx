@@ -4,7 +4,7 @@ import { VisitScreen } from "@/components/field/visit/visit-screen";
 import { requirePageActor } from "@/lib/auth/guard";
 import { fieldReference } from "@/lib/queries/field-reference";
 
-export const metadata: Metadata = { title: "Visit" };
+export const metadata: Metadata = { title: "Walk" };
 
 export default async function VisitPage() {
   const actor = await requirePageActor(["volunteer"], "/field/visit");
