@@ -119,7 +119,7 @@ try {
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL((u) => u.pathname === "/field", { timeout: 30_000 });
   // A visit in progress on this phone, so the add-sighting screen has something to open.
-  await page.getByRole("link", { name: "Start a visit" }).first().click();
+  await page.getByRole("link", { name: "Start a walk" }).first().click();
   const ack = page.getByRole("button", { name: "I have read this and will take care" });
   await ack.waitFor({ timeout: 30_000 }).then(() => ack.click()).catch(() => undefined);
   await page.getByRole("button", { name: "Start recording" }).click();
