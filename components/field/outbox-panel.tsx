@@ -79,7 +79,7 @@ export function OutboxPanel() {
   return (
     <section aria-labelledby="outbox-heading" className="card" data-testid="outbox">
       <div className="flex items-center justify-between gap-2">
-        <h2 id="outbox-heading" className="text-lg font-bold">Sending</h2>
+        <h2 id="outbox-heading" className="text-lg font-bold">Sending from this phone</h2>
         <span className={`rounded-full px-3 py-1 text-sm font-bold ${online ? "bg-lichen-100 text-lichen-700" : "bg-sand-100 text-sand-800"}`}>
           {online ? "Online" : "No signal"}
         </span>

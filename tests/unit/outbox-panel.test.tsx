@@ -45,6 +45,7 @@ describe("the outbox panel", () => {
     expect(keptOnServerNote({ visit: true, sightings: 2 })).not.toMatch(/checker|copy|server|visit/i);
     await phoneStore().visits.add(visit("a1", alice, { keptOnServer: { visit: false, sightings: 1 } }));
     render(<FieldProviders userId={alice}><OutboxPanel /></FieldProviders>);
+    expect(screen.getByRole("heading", { level: 2 })).toHaveTextContent("Sending from this phone");
     const note = await screen.findByTestId("kept-on-server");
     expect(note).toHaveTextContent("1 sighting");
     expect(note).toHaveTextContent(/^Walk on .*Sent, but your later changes to 1 sighting were not applied/);
