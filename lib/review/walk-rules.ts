@@ -13,7 +13,17 @@ import { BEAUFORT_FORCE, SUNSHINE_PERCENT, TEMPERATURE_C } from "../limits/count
 // equal to this module by tests/integration/review-rules-sql.test.ts).
 
 const time = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, "Use a 24-hour time such as 10:45");
-const temperature = z.number({ error: "Enter a temperature in °C" }).min(TEMPERATURE_C.min).max(TEMPERATURE_C.max);
+const between = (what: string, min: number, max: number) => `${what} must be between ${min} and ${max}`;
+const temperature = z
+  .number({ error: "Enter a temperature in °C" })
+  .min(TEMPERATURE_C.min, { message: between("A temperature", TEMPERATURE_C.min, TEMPERATURE_C.max) })
+  .max(TEMPERATURE_C.max, { message: between("A temperature", TEMPERATURE_C.min, TEMPERATURE_C.max) });
+const wholeNumber = (what: string, min: number, max: number) =>
+  z
+    .number({ error: `Enter ${what.toLowerCase()} as a whole number` })
+    .int({ message: `Enter ${what.toLowerCase()} as a whole number` })
+    .min(min, { message: between(what, min, max) })
+    .max(max, { message: between(what, min, max) });
 
 export const walkRulesSchema = z
   .object({
@@ -24,14 +34,17 @@ export const walkRulesSchema = z
     /** Below this, no walk (°C). */
     coolMinimumC: temperature,
     /** Between coolMinimumC and warmEnoughC, at least this share of the walk in sunshine. */
-    coolSunshinePercent: z.number().int().min(SUNSHINE_PERCENT.min).max(SUNSHINE_PERCENT.max),
+    coolSunshinePercent: wholeNumber("The share of sunshine", SUNSHINE_PERCENT.min, SUNSHINE_PERCENT.max),
     /** At or above this, any sunshine will do (°C). */
     warmEnoughC: temperature,
-    maxWindBeaufort: z.number().int().min(BEAUFORT_FORCE.min).max(BEAUFORT_FORCE.max),
+    maxWindBeaufort: wholeNumber("The wind force", BEAUFORT_FORCE.min, BEAUFORT_FORCE.max),
     /** Whether light or heavy rain is allowed during a walk. */
-    rainAllowed: z.boolean(),
+    rainAllowed: z.boolean({ error: "Say whether rain is allowed" }),
   })
-  .refine((r) => r.windowStart < r.windowEnd, { path: ["windowEnd"], message: "The window must end after it starts" })
+  .refine((r) => !/^\d\d:\d\d$/.test(r.windowStart) || !/^\d\d:\d\d$/.test(r.windowEnd) || r.windowStart < r.windowEnd, {
+    path: ["windowEnd"],
+    message: "The window must end after it starts",
+  })
   .refine((r) => r.coolMinimumC <= r.warmEnoughC, { path: ["warmEnoughC"], message: "Must be at least the lowest temperature" });
 
 export type WalkRules = z.infer<typeof walkRulesSchema>;

@@ -84,3 +84,19 @@ describe("walk rules: the words", () => {
     ]);
   });
 });
+
+describe("the rules' own messages (what the settings page and a 400 show)", () => {
+  it("names the field and its range instead of a library's wording", async () => {
+    const { walkRulesSchema, DEFAULT_WALK_RULES } = await import("@/lib/review/walk-rules");
+    const { warningRulesSchema, DEFAULT_WARNING_RULES } = await import("@/lib/review/warning-rules");
+    const walk = walkRulesSchema.safeParse({ ...DEFAULT_WALK_RULES, coolSunshinePercent: 101, maxWindBeaufort: 2.5, windowStart: "9" });
+    const messages = Object.fromEntries((walk.error?.issues ?? []).map((i) => [i.path.join("."), i.message]));
+    expect(messages).toEqual({
+      coolSunshinePercent: "The share of sunshine must be between 0 and 100",
+      maxWindBeaufort: "Enter the wind force as a whole number",
+      windowStart: "Use a 24-hour time such as 10:45",
+    });
+    const warning = warningRulesSchema.safeParse({ ...DEFAULT_WARNING_RULES, countMinimum: 0, firstRecordMinSeasons: 51 });
+    expect(warning.error?.issues.map((i) => i.message)).toEqual(["The smallest count must be between 1 and 100,000", "The earlier seasons must be between 1 and 50"]);
+  });
+});
