@@ -254,9 +254,15 @@ BEGIN
 END $$;--> statement-breakpoint
 CREATE TRIGGER "species_warnings_update" AFTER UPDATE ON "species" REFERENCING OLD TABLE AS old_rows NEW TABLE AS new_rows FOR EACH STATEMENT EXECUTE FUNCTION "species_sighting_warnings"();--> statement-breakpoint
 -- The audit trail is never edited, and deleted only with its sighting (a walk deleted by its
--- volunteer, an erasure): the sighting is gone before the cascade reaches its events.
+-- volunteer, an erasure): the sighting is gone before the cascade reaches its events. The one
+-- edit allowed is the law's: erasing a person on request blanks the words they wrote
+-- (lib/queries/personal-data.ts sets turnstone.erasing for its transaction), nothing else.
 CREATE FUNCTION "verification_events_append_only"() RETURNS trigger LANGUAGE plpgsql AS $$
 BEGIN
+  IF TG_OP = 'UPDATE' AND current_setting('turnstone.erasing', true) = 'on'
+     AND (to_jsonb(NEW) - 'message') = (to_jsonb(OLD) - 'message') THEN
+    RETURN NEW;
+  END IF;
   IF TG_OP = 'UPDATE' OR EXISTS (SELECT 1 FROM "sightings" WHERE "id" = OLD."sighting_id") THEN
     RAISE EXCEPTION 'the review history is append-only' USING ERRCODE = 'restrict_violation';
   END IF;

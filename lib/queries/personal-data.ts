@@ -66,6 +66,8 @@ export async function personalData(userId: string) {
         windBeaufort: visits.windBeaufort,
         cloudCoverPercent: visits.cloudCoverPercent,
         sky: visits.sky,
+        sunshinePercent: visits.sunshinePercent,
+        rain: visits.rain,
         walkedWith: visits.coRecorders,
         completeList: visits.completeList,
         notes: visits.notes,
@@ -76,7 +78,7 @@ export async function personalData(userId: string) {
       .innerJoin(transects, eq(transects.id, visits.transectId))
       .where(eq(visits.volunteerId, userId))
       .orderBy(asc(visits.visitDate), asc(visits.startTime)),
-    // Messages this person wrote anywhere (a checker's questions, a recorder's replies).
+    // Messages this person wrote anywhere (a reviewer's questions, a recorder's replies).
     db()
       .select({ at: verificationEvents.createdAt, sightingId: verificationEvents.sightingId, action: verificationEvents.action, message: verificationEvents.message })
       .from(verificationEvents)
@@ -176,6 +178,8 @@ export async function erasePerson(actor: Actor, userId: string, confirm: string)
     const own = tx.select({ id: visits.id }).from(visits).where(eq(visits.volunteerId, target.id));
     await tx.update(visits).set({ notes: null }).where(and(eq(visits.volunteerId, target.id), isNotNull(visits.notes)));
     await tx.update(sightings).set({ note: null }).where(and(inArray(sightings.visitId, own), isNotNull(sightings.note)));
+    // The review history is append-only (drizzle/0008) except for this: the law's erasure of the words a person wrote.
+    await tx.execute(sql`select set_config('turnstone.erasing', 'on', true)`);
     await tx.update(verificationEvents).set({ message: ERASED_MESSAGE }).where(and(eq(verificationEvents.actorId, target.id), isNotNull(verificationEvents.message)));
 
     // Their name in other people's "walked with" lines.

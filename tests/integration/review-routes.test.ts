@@ -245,6 +245,11 @@ describe("review API", () => {
     await expect(db().execute(sql`update verification_events set message = 'rewritten'`)).rejects.toMatchObject({ cause: { message: "the review history is append-only" } });
     const [event] = await db().execute<{ id: string }>(sql`select id from verification_events limit 1`);
     await expect(db().execute(sql`delete from verification_events where id = ${event!.id}`)).rejects.toMatchObject({ cause: { message: "the review history is append-only" } });
+    // An erasure may blank the words, and nothing else, even with its setting on.
+    await expect(db().transaction(async (tx) => {
+      await tx.execute(sql`select set_config('turnstone.erasing', 'on', true)`);
+      await tx.execute(sql`update verification_events set message = null, reason = 'other' where id = ${event!.id}`);
+    })).rejects.toMatchObject({ cause: { message: "the review history is append-only" } });
   });
 
   it("bulk-confirms the selection without warnings and lists what it skipped, in one go", async () => {

@@ -34,7 +34,7 @@ export default async function AccountPage() {
           {latest ? (
             <p>
               You accepted version {latest.version} ({licenceLabel[latest.licence]}) on {latest.acceptedAt.toISOString().slice(0, 10)}:
-              published data shows your records {latest.publishName ? "under your name" : "under your pseudonym"}, and you {latest.newsletter ? "receive" : "do not receive"} the newsletter.
+              published data shows your sightings {latest.publishName ? "under your name" : "under your pseudonym"}, and you {latest.newsletter ? "receive" : "do not receive"} the newsletter.
             </p>
           ) : (
             <p>You have not accepted a recorder agreement yet.</p>
