@@ -4,17 +4,17 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useFieldArray, useForm, useWatch, type FieldErrors } from "react-hook-form";
 import { paperWalkSchema, type PaperWalkInput, type PaperWalkValues } from "@/app/(review)/review/paper-walks/schema";
-import { skyLabel } from "@/lib/field/visit-form";
+import { rainLabel, skyLabel } from "@/lib/field/visit-form";
 import type { PaperWalkChoices } from "@/lib/queries/paper-walks";
-import { skyValues } from "@/lib/sync/protocol";
+import { rainValues, skyValues } from "@/lib/sync/protocol";
 import { SpeciesAdder } from "./species-adder";
 
 type FormShape = {
   volunteerId: string; transectId: string; visitDate: string; startTime: string; endTime: string;
-  temperatureC: string; windBeaufort: string; cloudCoverPercent: string; sky: string; completeList?: "yes" | "no"; notes: string;
+  temperatureC: string; windBeaufort: string; cloudCoverPercent: string; sky: string; sunshinePercent: string; rain: string; completeList?: "yes" | "no"; notes: string;
   sightings: { speciesId: string; count: string; section: string }[];
 };
-const empty: FormShape = { volunteerId: "", transectId: "", visitDate: "", startTime: "", endTime: "", temperatureC: "", windBeaufort: "", cloudCoverPercent: "", sky: "", notes: "", sightings: [] };
+const empty: FormShape = { volunteerId: "", transectId: "", visitDate: "", startTime: "", endTime: "", temperatureC: "", windBeaufort: "", cloudCoverPercent: "", sky: "", sunshinePercent: "", rain: "", notes: "", sightings: [] };
 
 type Saved = { visitId: string; sightings: number; volunteer: string; date: string };
 type ErrorAnswer = { error?: { message?: string; fields?: Record<string, string[]> } };
@@ -111,6 +111,15 @@ export function PaperWalkForm({ choices }: { choices: PaperWalkChoices }) {
             <option value="">Not noted</option>
             {skyValues.map((s) => <option key={s} value={s}>{skyLabel[s]}</option>)}
           </select>
+        </div>
+        {field("sunshinePercent", "Sunshine, % of the walk (optional)", { inputMode: "numeric" })}
+        <div>
+          <label htmlFor="pw-rain" className="field-label">Rain (optional)</label>
+          <select id="pw-rain" className="field-input" {...register("rain")}>
+            <option value="">Not noted</option>
+            {rainValues.map((r) => <option key={r} value={r}>{rainLabel[r]}</option>)}
+          </select>
+          {error("rain") && <p className="field-error">{error("rain")}</p>}
         </div>
         <fieldset className="sm:col-span-2">
           <legend className="field-label">Did they write down every species they saw?</legend>

@@ -37,6 +37,8 @@ describe("the paper walk form", () => {
     fireEvent.change(screen.getByLabelText("Date"), { target: { value: "2026-06-20" } });
     fireEvent.change(screen.getByLabelText("Start time"), { target: { value: "10:30" } });
     fireEvent.click(screen.getByLabelText("No, only some"));
+    fireEvent.change(screen.getByLabelText("Sunshine, % of the walk (optional)"), { target: { value: "70" } });
+    fireEvent.change(screen.getByLabelText("Rain (optional)"), { target: { value: "light" } });
     fireEvent.change(screen.getByLabelText(/Add a species/), { target: { value: "peac" } });
     fireEvent.click(screen.getByRole("button", { name: /Peacock/ }));
     fireEvent.change(screen.getByLabelText("Count"), { target: { value: "3" } });
@@ -44,7 +46,7 @@ describe("the paper walk form", () => {
     expect(await screen.findByText(/Saved the walk of Sam Okonjo on 2026-06-20 with 1 sightings/)).toBeTruthy();
     const [url, init] = fetchMock.mock.calls[0] as unknown as [string, RequestInit];
     expect(url).toBe("/api/review/paper-walks");
-    expect(JSON.parse(init.body as string)).toMatchObject({ volunteerId: ids.sam, transectId: ids.t1, completeList: "no", sightings: [{ speciesId: ids.peacock, count: 3, section: null }] });
+    expect(JSON.parse(init.body as string)).toMatchObject({ volunteerId: ids.sam, transectId: ids.t1, completeList: "no", sunshinePercent: 70, rain: "light", sightings: [{ speciesId: ids.peacock, count: 3, section: null }] });
   });
 
   it("shows the server's refusal, and nothing is lost from the form", async () => {
