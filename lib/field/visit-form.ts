@@ -34,18 +34,5 @@ export const startVisitSchema = z.object({
 export type StartVisitInput = z.input<typeof startVisitSchema>;
 export type StartVisitValues = z.output<typeof startVisitSchema>;
 
-export const skyLabel: Record<(typeof skyValues)[number], string> = {
-  clear: "Clear, full sun",
-  mostly_sunny: "Mostly sunny",
-  broken_cloud: "Sun and cloud",
-  mostly_cloudy: "Mostly cloudy",
-  overcast: "Overcast",
-};
-
-export const rainLabel: Record<(typeof rainValues)[number], string> = {
-  none: "No rain",
-  light: "Light rain",
-  heavy: "Heavy rain",
-};
-
+export { rainLabel, skyLabel } from "./weather-words";
 export { timeNow, todayLocal } from "./clock";

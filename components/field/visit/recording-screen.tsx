@@ -6,6 +6,7 @@ import type { ConditionsRules } from "@/lib/field/conditions";
 import type { FieldSeason } from "@/lib/field/season-dates";
 import type { ChecklistEntry } from "@/lib/field/species-search";
 import { timeNow } from "@/lib/field/clock";
+import { rainLabel } from "@/lib/field/weather-words";
 import { belongsTo, phoneStore, type LocalSighting } from "@/lib/offline/phone-store";
 import { deleteDraftVisit, deleteSighting, returnToDraft, SOMEONE_ELSES_WALK, submitVisit } from "@/lib/offline/records";
 import { syncNow } from "@/lib/offline/sync-controller";
@@ -136,6 +137,8 @@ export function RecordingScreen({
           {visit.visitDate} from {visit.startTime}
           {visit.temperatureC != null && ` · ${visit.temperatureC} °C`}
           {visit.windBeaufort != null && ` · wind ${visit.windBeaufort} (${beaufortScale[visit.windBeaufort]?.name})`}
+          {visit.sunshinePercent != null && ` · ${visit.sunshinePercent} % sun`}
+          {visit.rain != null && ` · ${rainLabel[visit.rain].toLowerCase()}`}
           {visit.coRecorders && ` · with ${visit.coRecorders}`}
         </p>
         {draft && !busy && (
