@@ -4,5 +4,5 @@ import { REVIEWERS } from "@/lib/auth/roles";
 
 export default async function ReviewLayout({ children }: { children: React.ReactNode }) {
   const actor = await requirePageActor(REVIEWERS, "/review");
-  return <AppShell actor={actor} area="/review" nav={[{ href: "/review", label: "Records to check" }, { href: "/review/paper-walks/new", label: "Enter a paper walk" }]}>{children}</AppShell>;
+  return <AppShell actor={actor} area="/review" nav={[{ href: "/review", label: "Sightings to review" }, { href: "/review/paper-walks/new", label: "Enter a paper walk" }]}>{children}</AppShell>;
 }
