@@ -172,7 +172,7 @@ function ReopenForm({ run, onDone, busy }: { run: RunAction; onDone: () => void;
 }
 
 /** The decisions a reviewer can take on the open sighting, each with its own short form. */
-export function ReviewActions({ row, canReopen, panel, onPanel, run, onConfirm, busy, confirmError }: { row: QueueRow; canReopen: boolean; panel: Panel | null; onPanel: (p: Panel | null) => void; run: RunAction; onConfirm: () => void; busy: boolean; confirmError: unknown }) {
+export function ReviewActions({ row, canReopen, panel, onPanel, run, onConfirm, busy, confirmError }: { row: QueueRow; /** null while the sighting's detail is loading. */ canReopen: boolean | null; panel: Panel | null; onPanel: (p: Panel | null) => void; run: RunAction; onConfirm: () => void; busy: boolean; confirmError: unknown }) {
   const open = isUndecided(row);
   const close = () => onPanel(null);
   const toggle = (p: Panel) => onPanel(panel === p ? null : p);
@@ -192,7 +192,7 @@ export function ReviewActions({ row, canReopen, panel, onPanel, run, onConfirm, 
         {!open && canReopen && (
           <button type="button" className="btn-quiet" aria-expanded={panel === "reopen"} onClick={() => toggle("reopen")}>{actionLabel.reopen}</button>
         )}
-        {!open && !canReopen && <p className="text-sm text-shingle-600">Decided. Its season is closed past its grace period, so it can no longer be reopened.</p>}
+        {!open && canReopen === false && <p className="text-sm text-shingle-600">Decided. Its season is closed past its grace period, so it can no longer be reopened.</p>}
       </div>
       {confirmError instanceof Error && !(confirmError instanceof ChangedError) && (
         <p role="alert" className="field-error">

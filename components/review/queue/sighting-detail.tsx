@@ -170,7 +170,7 @@ export function SightingDetail({ headingRef, ...props }: DetailProps) {
         </ul>
       )}
 
-      <ReviewActions row={row} canReopen={d?.canReopen ?? false} panel={props.panel} onPanel={props.onPanel} run={props.run} onConfirm={props.onConfirm} busy={props.busy} confirmError={props.confirmError} />
+      <ReviewActions row={row} canReopen={d ? d.canReopen : null} panel={props.panel} onPanel={props.onPanel} run={props.run} onConfirm={props.onConfirm} busy={props.busy} confirmError={props.confirmError} />
 
       {detail.isError && !d && (
         <p role="alert" className="field-error">
