@@ -84,7 +84,7 @@ describe("each role's areas", () => {
     const areas = page.getByRole("navigation", { name: "Your areas" });
     await areas.getByRole("link", { name: "Reviewing" }).click();
     await page.waitForURL((url) => url.pathname === "/review");
-    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toMatch(/Records to check/);
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toMatch(/Sightings to review/);
     await page.close();
   }, SIGNED_IN_TEST_TIMEOUT);
 });

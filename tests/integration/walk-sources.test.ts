@@ -7,12 +7,12 @@ import { createPaperWalk } from "@/lib/queries/paper-walks";
 import { personDetail } from "@/lib/queries/people";
 import { personalData } from "@/lib/queries/personal-data";
 import { walkSourcesOf } from "@/lib/queries/person-walks";
-import { reviewQueue } from "@/lib/queries/review";
+import { reviewQueuePage } from "@/lib/queries/review-queue";
 import { importSeason, previewSeasonImport } from "@/lib/queries/season-import";
 import { resetToDemo } from "./support/db";
 
 // A walk typed in from paper and a walk imported from an earlier season say where they came
-// from on every list of walks: the review queue, the person's page, My records, the data download.
+// from on every list of walks: the review queue, the person's page, My walks, the data download.
 async function actorOf(email: string): Promise<Actor> {
   const [u] = await db().select().from(users).where(eq(users.email, email));
   return { id: u!.id, roles: u!.roles, name: u!.name, email: u!.email };
@@ -50,15 +50,15 @@ beforeEach(async () => {
 });
 
 describe("where a walk came from", () => {
-  it("is on the review queue's rows: entered by the checker, or imported from the file", async () => {
-    const queue = await reviewQueue(1000);
-    const paper = queue.find((r) => r.visitDate === "2026-06-20" && r.enteredBy !== null);
-    expect(paper).toMatchObject({ recorder: volunteer.name, enteredBy: "Priya Coldharbour", importedFrom: null });
-    const imported = queue.find((r) => r.visitDate === importedWalkDate);
-    expect(imported!.importedFrom).toBe(`imported from walks-2024.csv on ${today()}`);
+  it("is on the review queue's rows: entered by the reviewer, or imported from the file", async () => {
+    const queue = (await reviewQueuePage({ status: "waiting", sort: "date", dir: "desc", page: 1, pageSize: 100, volunteer: volunteer.id })).rows;
+    const paper = queue.find((r) => r.walk.date === "2026-06-20" && r.walk.enteredBy !== null);
+    expect(paper).toMatchObject({ volunteer: { name: volunteer.name }, walk: { enteredBy: "Priya Coldharbour", importedFrom: null } });
+    const imported = (await reviewQueuePage({ status: "waiting", sort: "date", dir: "desc", page: 1, pageSize: 100, from: importedWalkDate, to: importedWalkDate })).rows;
+    expect(imported.find((r) => r.walk.importedFrom !== null)!.walk.importedFrom).toBe(`imported from walks-2024.csv on ${today()}`);
   });
 
-  it("is on the person's walks this season and in My records", async () => {
+  it("is on the person's walks this season and in My walks", async () => {
     const detail = await personDetail(volunteer.id);
     expect(detail.walks.find((w) => w.id === paperWalkId)).toMatchObject({ enteredBy: "Priya Coldharbour", importedFrom: null });
     const sources = await walkSourcesOf(volunteer.id);
