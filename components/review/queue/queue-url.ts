@@ -51,7 +51,9 @@ export function useQueueUrl(): [UrlQuery, (next: Partial<QueueQuery>) => void] {
     (next: Partial<QueueQuery>) => {
       const merged = { ...current.query, ...next } as QueueQuery;
       const qs = queueSearchParams(merged).toString();
-      window.history.replaceState(window.history.state, "", `${window.location.pathname}${qs ? `?${qs}` : ""}`);
+      // State null, as Next's docs show: a state carrying the router's own marker is passed through
+      // without updating useSearchParams.
+      window.history.replaceState(null, "", `${window.location.pathname}${qs ? `?${qs}` : ""}`);
     },
     [current],
   );
