@@ -125,13 +125,20 @@ describe("reviewing a sighting from the queue to a decision", () => {
     await correction.getByLabel("Change the species to").fill("Small/Essex");
     await correction.getByRole("button", { name: /Small\/Essex Skipper/ }).click();
     await correction.getByRole("button", { name: "Correct", exact: true }).click();
-    await expect.poll(() => detail.textContent()).toMatch(/Small\/Essex Skipper/);
+    // The correction is done when its form has closed and the sighting's heading names the aggregate.
+    await correction.waitFor({ state: "detached" });
+    await expect.poll(() => detail.getByRole("heading", { level: 2 }).textContent()).toMatch(/Small\/Essex Skipper/);
 
     // Confirm with the keyboard: focus on the page, not in a text field.
     await detail.getByRole("heading", { level: 2 }).focus();
     await page.keyboard.press("c");
     await expect.poll(async () => (await sql<{ status: string }[]>`select status from sightings where id = ${target.id}`)[0]!.status).toBe("accepted");
 
+    // Decided, and no longer far above earlier counts (an aggregate has none), it has left the
+    // filtered list: find it among every status on its transect.
+    await page.getByLabel("Warning").selectOption("");
+    await page.getByLabel("Status").selectOption("any");
+    await page.waitForURL((u) => u.searchParams.get("status") === "any" && !u.searchParams.has("warning"));
     await row.click();
     const history = page.getByTestId("review-history");
     await expect.poll(() => history.locator("li").count()).toBe(4);
