@@ -45,6 +45,8 @@ export const visits = pgTable(
   },
   (t) => [
     index("visits_transect_date_idx").on(t.transectId, t.visitDate),
+    // The review queue's default order (newest walk first), for filters that match most sightings.
+    index("visits_date_id_idx").on(t.visitDate.desc().nullsFirst(), t.id),
     index("visits_volunteer_idx").on(t.volunteerId, t.visitDate),
     index("visits_season_idx").on(t.seasonId),
     index("visits_import_idx").on(t.importId),

@@ -44,9 +44,17 @@ function conditions(f: QueueFilter): SQL[] {
 
 const whereSql = (parts: SQL[]) => (parts.length ? sql`where ${sql.join(parts, sql` and `)}` : sql``);
 
-/** The sightings matching a filter (joins only what the filter needs). */
+/** Whether the filter reads the walk (v) or its transect (t), beyond the sighting itself. */
+const needsWalk = (f: QueueFilter) => Boolean(f.season || f.transect || f.habitat || f.volunteer || f.from || f.to || f.warning === "walk_rules");
+
+/**
+ * The sightings matching a filter, joining only what the filter needs: a count by status or
+ * warning alone reads sightings and its indexes, not every walk.
+ */
 export function matchingSql(f: QueueFilter): SQL {
-  return sql`from sightings s join visits v on v.id = s.visit_id join transects t on t.id = v.transect_id ${whereSql(conditions(f))}`;
+  const walk = needsWalk(f) ? sql`join visits v on v.id = s.visit_id` : sql``;
+  const transect = f.habitat ? sql`join transects t on t.id = v.transect_id` : sql``;
+  return sql`from sightings s ${walk} ${transect} ${whereSql(conditions(f))}`;
 }
 
 const sortColumn: Record<QueueSort, SQL> = {
@@ -67,7 +75,9 @@ export function pageIdsSql(q: QueueQuery): SQL {
   const dir = q.dir === "asc" ? sql`asc` : sql`desc`;
   const needsSpecies = q.sort === "species";
   const needsUser = q.sort === "volunteer";
-  return sql`select s.id from sightings s join visits v on v.id = s.visit_id join transects t on t.id = v.transect_id
+  const needsTransect = q.sort === "transect" || Boolean(q.habitat);
+  return sql`select s.id from sightings s join visits v on v.id = s.visit_id
+    ${needsTransect ? sql`join transects t on t.id = v.transect_id` : sql``}
     ${needsSpecies ? sql`join species sp on sp.id = s.species_id` : sql``}
     ${needsUser ? sql`join users u on u.id = v.volunteer_id` : sql``}
     ${whereSql(conditions(q))}

@@ -1,0 +1,1 @@
+CREATE INDEX "visits_date_id_idx" ON "visits" USING btree ("visit_date" DESC NULLS FIRST,"id");
