@@ -5,7 +5,7 @@ import path from "node:path";
 import { Piscina } from "piscina";
 // sharp's advice for worker threads: load it in the main thread as well, so that its shared
 // libraries stay loaded while the pool's threads come and go.
-import "sharp";
+import sharp from "sharp";
 import { AppError } from "@/lib/errors";
 import { photoErrorCodes } from "./contract";
 import { countAtGate, heldAtGate, newHoldGate, openGate, type HoldGate } from "./pool-hold";
@@ -35,6 +35,13 @@ const IDLE_THREAD_MS = 5 * 60_000;
  * optional @napi-rs/nice): on a busy machine a photo waits a little longer, a sync batch does not.
  */
 const NICE_INCREMENT = 10;
+
+/**
+ * sharp's resizing and encoding run on libuv's threads, which the pool's lower priority does not
+ * reach; one libvips thread per image (instead of one per core) keeps a 12 MP photo from taking
+ * every core at once while sync batches wait. The setting is libvips's, for the whole process.
+ */
+sharp.concurrency(1);
 
 export const PHOTO_BUSY = photoErrorCodes.busy;
 
