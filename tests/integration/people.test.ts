@@ -31,7 +31,7 @@ describe("inviting people with their roles", () => {
     expect(invite!.tokenHash).not.toContain(token);
     const [mail] = await db().select().from(emailOutbox).where(eq(emailOutbox.toAddress, "nia.holt@example.org"));
     expect(mail!.textBody).toContain(`/invitation/${token}`);
-    expect(mail!.textBody).toContain("volunteer recorder and record checker");
+    expect(mail!.textBody).toContain("volunteer recorder and reviewer");
     expect(mail!.status).toBe("queued");
     const [log] = await logFor("person", `invitation:${id}`);
     expect(log).toMatchObject({ action: "invite", actorId: actor.id, after: { roles: ["volunteer", "coordinator"] } });

@@ -165,7 +165,7 @@ describe("importing an earlier season", () => {
     expect(res.json.error!.message).toContain("sightings file is larger than 10 MB");
   });
 
-  it("refuses non-organisers: a record checker and a volunteer get 403 and nothing is written", async () => {
+  it("refuses non-organisers: a reviewer and a volunteer get 403 and nothing is written", async () => {
     const shown = await preview(form(goodWalks, goodSightings));
     const before = await rowCounts();
     for (const email of ["checker@harrowmere.example", "volunteer01@harrowmere.example"]) {
