@@ -220,29 +220,25 @@ CREATE TRIGGER "visits_tss_update" AFTER UPDATE ON "visits" REFERENCING OLD TABL
 CREATE TRIGGER "visits_tss_delete" AFTER DELETE ON "visits" REFERENCING OLD TABLE AS old_rows FOR EACH STATEMENT EXECUTE FUNCTION "visits_tss_refresh"();--> statement-breakpoint
 -- A photo added, refused or removed changes "sensitive species without a photo".
 CREATE FUNCTION "photos_sighting_warnings"() RETURNS trigger LANGUAGE plpgsql AS $$
+DECLARE
+  touched uuid[];
 BEGIN
+  -- Each statement kind has only its own transition tables: read only those.
+  IF TG_OP = 'INSERT' THEN
+    touched := ARRAY(SELECT "sighting_id" FROM new_rows);
+  ELSIF TG_OP = 'DELETE' THEN
+    touched := ARRAY(SELECT "sighting_id" FROM old_rows);
+  ELSE
+    touched := ARRAY(SELECT "sighting_id" FROM new_rows UNION SELECT "sighting_id" FROM old_rows);
+  END IF;
   UPDATE "sightings" s SET "warnings" = sighting_warning_kinds(s."id", s."visit_id", s."species_id", s."count")
-  WHERE s."id" IN (SELECT "sighting_id" FROM new_rows UNION SELECT "sighting_id" FROM old_rows)
+  WHERE s."id" = ANY (touched)
     AND s."warnings" IS DISTINCT FROM sighting_warning_kinds(s."id", s."visit_id", s."species_id", s."count");
   RETURN NULL;
 END $$;--> statement-breakpoint
-CREATE FUNCTION "photos_sighting_warnings_insert"() RETURNS trigger LANGUAGE plpgsql AS $$
-BEGIN
-  UPDATE "sightings" s SET "warnings" = sighting_warning_kinds(s."id", s."visit_id", s."species_id", s."count")
-  WHERE s."id" IN (SELECT "sighting_id" FROM new_rows)
-    AND s."warnings" IS DISTINCT FROM sighting_warning_kinds(s."id", s."visit_id", s."species_id", s."count");
-  RETURN NULL;
-END $$;--> statement-breakpoint
-CREATE FUNCTION "photos_sighting_warnings_delete"() RETURNS trigger LANGUAGE plpgsql AS $$
-BEGIN
-  UPDATE "sightings" s SET "warnings" = sighting_warning_kinds(s."id", s."visit_id", s."species_id", s."count")
-  WHERE s."id" IN (SELECT "sighting_id" FROM old_rows)
-    AND s."warnings" IS DISTINCT FROM sighting_warning_kinds(s."id", s."visit_id", s."species_id", s."count");
-  RETURN NULL;
-END $$;--> statement-breakpoint
-CREATE TRIGGER "photos_warnings_insert" AFTER INSERT ON "photos" REFERENCING NEW TABLE AS new_rows FOR EACH STATEMENT EXECUTE FUNCTION "photos_sighting_warnings_insert"();--> statement-breakpoint
+CREATE TRIGGER "photos_warnings_insert" AFTER INSERT ON "photos" REFERENCING NEW TABLE AS new_rows FOR EACH STATEMENT EXECUTE FUNCTION "photos_sighting_warnings"();--> statement-breakpoint
 CREATE TRIGGER "photos_warnings_update" AFTER UPDATE ON "photos" REFERENCING OLD TABLE AS old_rows NEW TABLE AS new_rows FOR EACH STATEMENT EXECUTE FUNCTION "photos_sighting_warnings"();--> statement-breakpoint
-CREATE TRIGGER "photos_warnings_delete" AFTER DELETE ON "photos" REFERENCING OLD TABLE AS old_rows FOR EACH STATEMENT EXECUTE FUNCTION "photos_sighting_warnings_delete"();--> statement-breakpoint
+CREATE TRIGGER "photos_warnings_delete" AFTER DELETE ON "photos" REFERENCING OLD TABLE AS old_rows FOR EACH STATEMENT EXECUTE FUNCTION "photos_sighting_warnings"();--> statement-breakpoint
 -- A species' usual months or sensitivity changed: its sightings' warnings again.
 CREATE FUNCTION "species_sighting_warnings"() RETURNS trigger LANGUAGE plpgsql AS $$
 BEGIN
