@@ -14,51 +14,25 @@ import "./server-conditions";
 import "./load-env";
 import path from "node:path";
 import postgres from "postgres";
-import { developmentDefaults } from "../lib/env";
 import { defaultShape, generate } from "./bench/network-data";
+import { throwawayDatabase } from "./bench/throwaway-db";
 import { fmt, timeCalls, type Figures } from "./bench/timing";
 
 const DB_NAME = "turnstone_bench_network";
 const TARGET_P95_MS = 300;
 const RUNS = Number(process.env.BENCH_RUNS ?? 60);
 const WARM_UP = 5;
-const KEEP = process.env.BENCH_KEEP === "1";
 const MARK = `turnstone bench:network ${JSON.stringify(defaultShape)}`;
+const bench = throwawayDatabase(DB_NAME, "bench:network", MARK);
 
-const clusterUrl = new URL(process.env.DATABASE_URL ?? developmentDefaults.DATABASE_URL);
-const benchUrl = Object.assign(new URL(clusterUrl), { pathname: `/${DB_NAME}` }).toString();
-const admin = postgres(Object.assign(new URL(clusterUrl), { pathname: "/postgres" }).toString(), { max: 1, onnotice: () => undefined });
 const say = (line: string) => console.log(line);
 
-let dropped = false;
-async function dropBenchDatabase() {
-  if (KEEP || dropped) return;
-  dropped = true;
-  await admin.unsafe(`drop database if exists "${DB_NAME}" with (force)`);
-  say(`[bench:network] dropped ${DB_NAME}`);
-}
-
-for (const signal of ["SIGINT", "SIGTERM"] as const) {
-  process.on(signal, () => {
-    say(`\n[bench:network] ${signal}: removing the bench database`);
-    dropBenchDatabase().finally(() => process.exit(130));
-  });
-}
-
-async function prepareDatabase(): Promise<boolean> {
-  const [existing] = await admin<{ mark: string | null }[]>`
-    select shobj_description(oid, 'pg_database') as mark from pg_database where datname = ${DB_NAME}`;
-  if (existing && KEEP && existing.mark === MARK) return false;
-  await admin.unsafe(`drop database if exists "${DB_NAME}" with (force)`);
-  await admin.unsafe(`create database "${DB_NAME}"`);
-  return true;
-}
 
 type Page = { name: string; target: boolean; call: (i: number) => Promise<unknown> };
 
 async function main() {
-  const fresh = await prepareDatabase();
-  process.env.DATABASE_URL = benchUrl;
+  const fresh = await bench.prepare();
+  process.env.DATABASE_URL = bench.url;
   const { closeDb, db, sqlClient } = await import("../db/client");
   const { migrate } = await import("drizzle-orm/postgres-js/migrator");
   await migrate(db(), { migrationsFolder: path.resolve(import.meta.dirname, "..", "drizzle") });
@@ -71,7 +45,7 @@ async function main() {
       await seedDemo(db(), "bench-no-sign-in");
       const started = performance.now();
       await generate(sql, defaultShape, say);
-      await admin.unsafe(`comment on database "${DB_NAME}" is '${MARK.replaceAll("'", "''")}'`);
+      await bench.setMark();
       say(`  generated in ${Math.round((performance.now() - started) / 1000)} s`);
     } else {
       say(`[bench:network] reusing ${DB_NAME} (BENCH_KEEP=1)`);
@@ -141,6 +115,5 @@ main()
     process.exitCode = 1;
   })
   .finally(async () => {
-    await dropBenchDatabase().catch((error: unknown) => console.error("[bench:network] could not drop the bench database:", error));
-    await admin.end({ timeout: 5 });
+    await bench.close();
   });

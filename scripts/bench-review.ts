@@ -19,9 +19,9 @@ import path from "node:path";
 import postgres from "postgres";
 import { PgDialect } from "drizzle-orm/pg-core";
 import type { SQL } from "drizzle-orm";
-import { developmentDefaults } from "../lib/env";
 import { generate, type Shape } from "./bench/network-data";
 import { giveReviewMix } from "./bench/review-data";
+import { throwawayDatabase } from "./bench/throwaway-db";
 import { fmt, timeCalls, type Figures } from "./bench/timing";
 import { queueQuerySchema, queueSorts, statusFilters, type QueueQuery } from "../lib/review/queue-filter";
 import { warningFilters } from "../lib/review/warnings";
@@ -30,7 +30,6 @@ const DB_NAME = "turnstone_bench_review";
 const TARGET_P95_MS = 150;
 const RUNS = Number(process.env.BENCH_RUNS ?? 40);
 const WARM_UP = 5;
-const KEEP = process.env.BENCH_KEEP === "1";
 const shape: Shape = {
   transects: Number(process.env.BENCH_TRANSECTS ?? 60),
   seasons: 5,
@@ -40,42 +39,17 @@ const shape: Shape = {
 };
 // The mix's version is in the mark, so a kept database made by an older mix is made again.
 const MARK = `turnstone bench:review mix 2 ${JSON.stringify(shape)}`;
+const bench = throwawayDatabase(DB_NAME, "bench:review", MARK);
 
-const clusterUrl = new URL(process.env.DATABASE_URL ?? developmentDefaults.DATABASE_URL);
-const benchUrl = Object.assign(new URL(clusterUrl), { pathname: `/${DB_NAME}` }).toString();
-const admin = postgres(Object.assign(new URL(clusterUrl), { pathname: "/postgres" }).toString(), { max: 1, onnotice: () => undefined });
 const say = (line: string) => console.log(line);
 const n = (x: number) => x.toLocaleString("en-GB");
 
-let dropped = false;
-async function dropBenchDatabase() {
-  if (KEEP || dropped) return;
-  dropped = true;
-  await admin.unsafe(`drop database if exists "${DB_NAME}" with (force)`);
-  say(`[bench:review] dropped ${DB_NAME}`);
-}
-
-for (const signal of ["SIGINT", "SIGTERM"] as const) {
-  process.on(signal, () => {
-    say(`\n[bench:review] ${signal}: removing the bench database`);
-    dropBenchDatabase().finally(() => process.exit(130));
-  });
-}
-
-async function prepareDatabase(): Promise<boolean> {
-  const [existing] = await admin<{ mark: string | null }[]>`
-    select shobj_description(oid, 'pg_database') as mark from pg_database where datname = ${DB_NAME}`;
-  if (existing && KEEP && existing.mark === MARK) return false;
-  await admin.unsafe(`drop database if exists "${DB_NAME}" with (force)`);
-  await admin.unsafe(`create database "${DB_NAME}"`);
-  return true;
-}
 
 type Line = { name: string; query: QueueQuery };
 
 async function main() {
-  const fresh = await prepareDatabase();
-  process.env.DATABASE_URL = benchUrl;
+  const fresh = await bench.prepare();
+  process.env.DATABASE_URL = bench.url;
   const { closeDb, db, sqlClient } = await import("../db/client");
   const { migrate } = await import("drizzle-orm/postgres-js/migrator");
   await migrate(db(), { migrationsFolder: path.resolve(import.meta.dirname, "..", "drizzle") });
@@ -90,14 +64,14 @@ async function main() {
       // One session (the generator's temp tables), planning each statement afresh: the warning
       // triggers' plpgsql plans would otherwise stay cached from when transect_species_seasons
       // was empty (one run spent 337 s on a season instead of 3 s). Timing uses the app's pool.
-      const generating = postgres(benchUrl, { max: 1, onnotice: () => undefined, connection: { plan_cache_mode: "force_custom_plan" } });
+      const generating = postgres(bench.url, { max: 1, onnotice: () => undefined, connection: { plan_cache_mode: "force_custom_plan" } });
       try {
         await generate(generating, shape, say);
         await giveReviewMix(generating, say);
       } finally {
         await generating.end({ timeout: 5 });
       }
-      await admin.unsafe(`comment on database "${DB_NAME}" is '${MARK.replaceAll("'", "''")}'`);
+      await bench.setMark();
       say(`  generated in ${Math.round((performance.now() - started) / 1000)} s`);
     } else {
       say(`[bench:review] reusing ${DB_NAME} (BENCH_KEEP=1)`);
@@ -226,6 +200,5 @@ main()
     process.exitCode = 1;
   })
   .finally(async () => {
-    await dropBenchDatabase().catch((error: unknown) => console.error("[bench:review] could not drop the bench database:", error));
-    await admin.end({ timeout: 5 });
+    await bench.close();
   });
