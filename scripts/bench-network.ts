@@ -12,7 +12,6 @@
 //   BENCH_SIGHTINGS, BENCH_TRANSECTS, BENCH_CHANGES, BENCH_RUNS (timed calls per page, default 60).
 import "./server-conditions";
 import "./load-env";
-import path from "node:path";
 import postgres from "postgres";
 import { defaultShape, generate } from "./bench/network-data";
 import { throwawayDatabase } from "./bench/throwaway-db";
@@ -31,26 +30,9 @@ const say = (line: string) => console.log(line);
 type Page = { name: string; target: boolean; call: (i: number) => Promise<unknown> };
 
 async function main() {
-  const fresh = await bench.prepare();
-  process.env.DATABASE_URL = bench.url;
-  const { closeDb, db, sqlClient } = await import("../db/client");
-  const { migrate } = await import("drizzle-orm/postgres-js/migrator");
-  await migrate(db(), { migrationsFolder: path.resolve(import.meta.dirname, "..", "drizzle") });
+  const { closeDb, sqlClient } = await bench.open((sql) => generate(sql, defaultShape, say));
   const sql = sqlClient();
   try {
-    if (fresh) {
-      say(`[bench:network] generating in ${DB_NAME} (once; BENCH_KEEP=1 keeps it for the next run)`);
-      const { seedDemo } = await import("../db/seed/demo");
-      // Nobody signs in to the bench database: the password hash is never checked.
-      await seedDemo(db(), "bench-no-sign-in");
-      const started = performance.now();
-      await generate(sql, defaultShape, say);
-      await bench.setMark();
-      say(`  generated in ${Math.round((performance.now() - started) / 1000)} s`);
-    } else {
-      say(`[bench:network] reusing ${DB_NAME} (BENCH_KEEP=1)`);
-      await sql`analyze`;
-    }
     const [counts] = await sql<{ transects: number; seasons: number; visits: number; sightings: number; changes: number }[]>`
       select (select count(*) from transects)::int as transects, (select count(*) from seasons)::int as seasons,
         (select count(*) from visits)::int as visits, (select count(*) from sightings)::int as sightings,

@@ -15,7 +15,6 @@
 //   BENCH_ONLY (comma-separated parts of filter names: time only those, e.g. "status=accepted,sort=").
 import "./server-conditions";
 import "./load-env";
-import path from "node:path";
 import postgres from "postgres";
 import { PgDialect } from "drizzle-orm/pg-core";
 import type { SQL } from "drizzle-orm";
@@ -48,35 +47,20 @@ const n = (x: number) => x.toLocaleString("en-GB");
 type Line = { name: string; query: QueueQuery };
 
 async function main() {
-  const fresh = await bench.prepare();
-  process.env.DATABASE_URL = bench.url;
-  const { closeDb, db, sqlClient } = await import("../db/client");
-  const { migrate } = await import("drizzle-orm/postgres-js/migrator");
-  await migrate(db(), { migrationsFolder: path.resolve(import.meta.dirname, "..", "drizzle") });
+  const { closeDb, sqlClient } = await bench.open(async () => {
+    // One session (the generator's temp tables), planning each statement afresh: the warning
+    // triggers' plpgsql plans would otherwise stay cached from when transect_species_seasons
+    // was empty (one run spent 337 s on a season instead of 3 s). Timing uses the app's pool.
+    const generating = postgres(bench.url, { max: 1, onnotice: () => undefined, connection: { plan_cache_mode: "force_custom_plan" } });
+    try {
+      await generate(generating, shape, say);
+      await giveReviewMix(generating, say);
+    } finally {
+      await generating.end({ timeout: 5 });
+    }
+  });
   const sql = sqlClient();
   try {
-    if (fresh) {
-      say(`[bench:review] generating in ${DB_NAME} (once; BENCH_KEEP=1 keeps it for the next run)`);
-      const { seedDemo } = await import("../db/seed/demo");
-      // Nobody signs in to the bench database: the password hash is never checked.
-      await seedDemo(db(), "bench-no-sign-in");
-      const started = performance.now();
-      // One session (the generator's temp tables), planning each statement afresh: the warning
-      // triggers' plpgsql plans would otherwise stay cached from when transect_species_seasons
-      // was empty (one run spent 337 s on a season instead of 3 s). Timing uses the app's pool.
-      const generating = postgres(bench.url, { max: 1, onnotice: () => undefined, connection: { plan_cache_mode: "force_custom_plan" } });
-      try {
-        await generate(generating, shape, say);
-        await giveReviewMix(generating, say);
-      } finally {
-        await generating.end({ timeout: 5 });
-      }
-      await bench.setMark();
-      say(`  generated in ${Math.round((performance.now() - started) / 1000)} s`);
-    } else {
-      say(`[bench:review] reusing ${DB_NAME} (BENCH_KEEP=1)`);
-      await sql`analyze`;
-    }
     await describeData(sql);
 
     const lines = await linesToTime(sql);

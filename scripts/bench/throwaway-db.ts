@@ -2,6 +2,7 @@
 // made fresh for each run and dropped afterwards, also on Ctrl-C; BENCH_KEEP=1 keeps it, and a
 // later BENCH_KEEP=1 run reuses it when its mark (a comment on the database saying what made it)
 // is the same.
+import path from "node:path";
 import postgres from "postgres";
 import { developmentDefaults } from "../../lib/env";
 
@@ -41,6 +42,31 @@ export function throwawayDatabase(name: string, label: string, mark: string) {
     /** Marks a finished database as made by this mark (a kept one is then reused). */
     async setMark() {
       await admin.unsafe(`comment on database "${name}" is '${mark.replaceAll("'", "''")}'`);
+    },
+    /**
+     * Makes (or reuses) the database, points the app's client at it, migrates it and, when it is
+     * new, seeds the demo and runs `fill`; returns the app's client modules for the timing.
+     */
+    async open(fill: (sql: postgres.Sql) => Promise<unknown>) {
+      const fresh = await this.prepare();
+      process.env.DATABASE_URL = url;
+      const client = await import("../../db/client");
+      const { migrate } = await import("drizzle-orm/postgres-js/migrator");
+      await migrate(client.db(), { migrationsFolder: path.resolve(import.meta.dirname, "..", "..", "drizzle") });
+      if (fresh) {
+        console.log(`[${label}] generating in ${name} (once; BENCH_KEEP=1 keeps it for the next run)`);
+        const { seedDemo } = await import("../../db/seed/demo");
+        // Nobody signs in to the bench database: the password hash is never checked.
+        await seedDemo(client.db(), "bench-no-sign-in");
+        const started = performance.now();
+        await fill(client.sqlClient());
+        await this.setMark();
+        console.log(`  generated in ${Math.round((performance.now() - started) / 1000)} s`);
+      } else {
+        console.log(`[${label}] reusing ${name} (BENCH_KEEP=1)`);
+        await client.sqlClient()`analyze`;
+      }
+      return client;
     },
     /** Drops the database (unless kept) and closes the admin connection. */
     async close() {
